@@ -1,0 +1,6 @@
+namespace LongRecord.Cli;
+
+public static class Program
+{
+    public static int Main(string[] args) => 0;
+}

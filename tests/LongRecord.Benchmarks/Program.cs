@@ -1,0 +1,6 @@
+namespace LongRecord.Benchmarks;
+
+public static class Program
+{
+    public static int Main(string[] args) => 0;
+}
