@@ -35,7 +35,7 @@ internal static class CsvHeaderLine
             cells[i] = Unquote(cells[i].Trim());
             if (cells[i].Length == 0)
             {
-                return $"header column {i + 1} has no name";
+                return FormattableString.Invariant($"header column {i + 1} has no name");
             }
         }
 

@@ -1,3 +1,4 @@
+using System.Diagnostics.CodeAnalysis;
 using LongRecord.Formats.IO;
 
 namespace LongRecord.Formats.Csv;
@@ -56,6 +57,11 @@ internal sealed class CsvLineCursor
             if (newline >= 0 || (_atEnd && rest.Length > 0))
             {
                 var end = newline >= 0 ? newline : rest.Length;
+                if (end > MaxLineBytes)
+                {
+                    TooLong();
+                }
+
                 line = rest[..end];
                 if (line.Length > 0 && line[^1] == (byte)'\r')
                 {
@@ -74,14 +80,18 @@ internal sealed class CsvLineCursor
                 return false;
             }
 
-            if (rest.Length >= MaxLineBytes)
+            if (rest.Length > MaxLineBytes)
             {
-                RecordingFormatException.Throw(_file.Path, $"line {LineNumber + 1} is longer than {MaxLineBytes} bytes", _bufferOffset + _position);
+                TooLong();
             }
 
             Refill();
         }
     }
+
+    [DoesNotReturn]
+    private void TooLong() =>
+        RecordingFormatException.Throw(_file.Path, FormattableString.Invariant($"line {LineNumber + 1} is longer than {MaxLineBytes} bytes"), _bufferOffset + _position);
 
     private void Refill()
     {

@@ -1,4 +1,6 @@
 using System.Buffers.Binary;
+using System.Diagnostics.CodeAnalysis;
+using System.Globalization;
 using System.Text;
 using LongRecord.Formats.IO;
 
@@ -15,25 +17,25 @@ internal static class IshneHeaderParser
         if (got < IshneLayout.MagicLength || !head.AsSpan(0, IshneLayout.MagicLength).SequenceEqual(IshneLayout.Magic))
         {
             var shown = Printable(head.AsSpan(0, Math.Min(got, IshneLayout.MagicLength)));
-            RecordingFormatException.Throw(path, $"not an ISHNE Holter file: magic number '{shown}', expected 'ISHNE1.0'", 0, "magic number");
+            Fail(path, $"not an ISHNE Holter file: magic number '{shown}', expected 'ISHNE1.0'", 0, "magic number");
         }
 
         if (got < head.Length)
         {
-            RecordingFormatException.Throw(path, $"file ends inside the fixed-length header block (needs {head.Length} bytes, has {got})", got, "fixed-length block");
+            Fail(path, $"file ends inside the fixed-length header block (needs {head.Length} bytes, has {got})", got, "fixed-length block");
         }
 
         var varSize = I32(head, IshneLayout.VariableBlockSizeOffset);
         if (varSize < 0 || varSize > IshneLayout.MaxVariableBlockBytes)
         {
-            RecordingFormatException.Throw(path, $"size of the variable-length block {varSize} is outside 0–{IshneLayout.MaxVariableBlockBytes}",
+            Fail(path, $"size of the variable-length block {varSize} is outside 0–{IshneLayout.MaxVariableBlockBytes}",
                 IshneLayout.VariableBlockSizeOffset, "size of the variable-length block");
         }
 
         var varOffset = I32(head, IshneLayout.VariableBlockOffsetOffset);
         if (varOffset != IshneLayout.VariableBlockStart)
         {
-            RecordingFormatException.Throw(path, $"offset of the variable-length block is {varOffset}, expected {IshneLayout.VariableBlockStart}",
+            Fail(path, $"offset of the variable-length block is {varOffset}, expected {IshneLayout.VariableBlockStart}",
                 IshneLayout.VariableBlockOffsetOffset, "offset of the variable-length block");
         }
 
@@ -58,13 +60,13 @@ internal static class IshneHeaderParser
 
         if (leadCount < 0 || leadCount > IshneLayout.MaxLeads)
         {
-            RecordingFormatException.Throw(path, $"number of stored leads {leadCount} is outside 1–{IshneLayout.MaxLeads}", IshneLayout.LeadCountOffset, "number of stored leads");
+            Fail(path, $"number of stored leads {leadCount} is outside 1–{IshneLayout.MaxLeads}", IshneLayout.LeadCountOffset, "number of stored leads");
         }
 
         var rate = I16(head, IshneLayout.SamplingRateOffset);
         if (rate <= 0)
         {
-            RecordingFormatException.Throw(path, $"sampling rate {rate} Hz is not positive", IshneLayout.SamplingRateOffset, "sampling rate");
+            Fail(path, $"sampling rate {rate} Hz is not positive", IshneLayout.SamplingRateOffset, "sampling rate");
         }
 
         var leads = new IshneLead[leadCount];
@@ -73,7 +75,7 @@ internal static class IshneHeaderParser
             var resolution = I16(head, IshneLayout.ResolutionOffset + 2 * k);
             if (resolution <= 0)
             {
-                RecordingFormatException.Throw(path, $"amplitude resolution of lead {k + 1} is {resolution} nV, must be positive",
+                Fail(path, $"amplitude resolution of lead {k + 1} is {resolution} nV, must be positive",
                     IshneLayout.ResolutionOffset + 2 * k, "amplitude resolution");
             }
 
@@ -86,7 +88,7 @@ internal static class IshneHeaderParser
         var samplesPerLead = I32(head, IshneLayout.SamplesPerLeadOffset);
         if (samplesPerLead < 0)
         {
-            RecordingFormatException.Throw(path, $"number of samples per lead {samplesPerLead} is negative", IshneLayout.SamplesPerLeadOffset, "number of samples per lead");
+            Fail(path, $"number of samples per lead {samplesPerLead} is negative", IshneLayout.SamplesPerLeadOffset, "number of samples per lead");
         }
 
         var needed = ecgOffset + (long)samplesPerLead * leadCount * sizeof(short);
@@ -141,7 +143,7 @@ internal static class IshneHeaderParser
             return (storedBig, true);
         }
 
-        RecordingFormatException.Throw(path, $"header checksum mismatch: stored 0x{storedLittle:X4}, computed 0x{computed:X4}", IshneLayout.ChecksumOffset, "checksum");
+        Fail(path, $"header checksum mismatch: stored 0x{storedLittle:X4}, computed 0x{computed:X4}", IshneLayout.ChecksumOffset, "checksum");
         return default;
     }
 
@@ -155,7 +157,7 @@ internal static class IshneHeaderParser
 
         if (!IsCalendarDate(day, month, year))
         {
-            RecordingFormatException.Throw(path, $"{field} {day}/{month}/{year} (day/month/year) is not a calendar date", offset, field);
+            Fail(path, $"{field} {day}/{month}/{year} (day/month/year) is not a calendar date", offset, field);
         }
 
         return new DateOnly(year, month, day);
@@ -179,11 +181,16 @@ internal static class IshneHeaderParser
 
         if (hour is < 0 or > 23 || minute is < 0 or > 59 || second is < 0 or > 59)
         {
-            RecordingFormatException.Throw(path, $"start time {hour}:{minute}:{second} is not a clock time", offset, "start time");
+            Fail(path, $"start time {hour}:{minute}:{second} is not a clock time", offset, "start time");
         }
 
         return new TimeOnly(hour, minute, second);
     }
+
+    // Numbers in messages are formatted with the invariant culture, whatever the machine's.
+    [DoesNotReturn]
+    private static void Fail(string path, FormattableString problem, long offset, string field) =>
+        RecordingFormatException.Throw(path, problem.ToString(CultureInfo.InvariantCulture), offset, field);
 
     private static bool IsCalendarDate(int day, int month, int year) =>
         year is >= 1 and <= 9999 && month is >= 1 and <= 12 && day >= 1 && day <= DateTime.DaysInMonth(year, month);

@@ -84,5 +84,26 @@ public class CsvBlockSizeTests : IDisposable
         }
     }
 
+    // Each read continues from the previous one's end, repeats it, overlaps it by one row, or crosses an index entry
+    // (1 024 rows), so every way of positioning the cursor is used.
+    [Theory]
+    [InlineData(0, 100, 99)]
+    [InlineData(0, 100, 100)]
+    [InlineData(0, 100, 0)]
+    [InlineData(1000, 30, 1029)]
+    [InlineData(1020, 10, 1023)]
+    [InlineData(4000, 50, 1)]
+    public void ReadAfterRead_AnyRelativePosition_MatchesText(int first, int length, int second)
+    {
+        using var reader = CsvRecordingReader.Open(_path);
+        var block = new float[length];
+        reader.Read(1, first, block);
+        reader.Read(1, second, block);
+        for (var i = 0; i < length; i++)
+        {
+            Assert.Equal((float)CsvTestText.Value(1, second + i), block[i]);
+        }
+    }
+
     public void Dispose() => _temp.Dispose();
 }

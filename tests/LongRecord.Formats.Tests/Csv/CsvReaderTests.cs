@@ -156,6 +156,30 @@ public class CsvReaderTests
         Assert.Equal(250.0, reader.Info.Channels[0].SamplingRateHz);
     }
 
+    // Last step 6 ms at 250 Hz: 50 % over the 4 ms interval, beyond 10 % plus the 1 ms rounding allowance of 3 decimals.
+    // One displaced end point moves the fitted interval by far less than the snapping slack, so the rate stays 250 Hz.
+    [Fact]
+    public void Jitter_BeyondTolerance_IsRejectedNamingLineAndByte()
+    {
+        using var temp = new TempFolder("csv");
+        var text = CsvTestText.Seconds(250, 400, timeFormat: "F3", time: i => i / 250.0 + (i == 399 ? 0.002 : 0));
+        var path = temp.Write("jitter.csv", CsvTestText.Bytes(text));
+        var e = Assert.Throws<RecordingFormatException>(() => CsvRecordingReader.Open(path));
+        Assert.Equal(
+            $"{path}: time step of 0.006 s at line 401 deviates from the sampling interval 0.004 s (250 Hz) by more than 10 % at byte {CsvTestText.OffsetOfLine(text, 401)}",
+            e.Message);
+    }
+
+    [Fact]
+    public void LineLongerThanLimit_IsRejected()
+    {
+        using var temp = new TempFolder("csv");
+        var text = "time_s,II\n0,1\n0.004," + new string('1', 70_000) + "\n";
+        var e = Assert.Throws<RecordingFormatException>(() => CsvRecordingReader.Open(temp.Write("long.csv", CsvTestText.Bytes(text))));
+        Assert.Contains("line 3 is longer than 65536 bytes", e.Message);
+        Assert.Equal(CsvTestText.OffsetOfLine(text, 3), e.ByteOffset);
+    }
+
     [Fact]
     public void Sniff_HeaderWithTimeColumn_OrCsvExtension()
     {
