@@ -107,6 +107,27 @@ public class IshneHandAssembledTests
         Assert.Null(reader.Info.Identification.Sex);
     }
 
+    // The header's sample count is authoritative: bytes after the declared samples (padding by some writers) are not read.
+    [Fact]
+    public void HandAssembled_BytesAfterDeclaredSamples_AreIgnored()
+    {
+        using var temp = new TempFolder("ishne");
+        var bytes = new IshneFileBuilder().Build();
+        var padded = bytes.Concat(new byte[] { 0x11, 0x22, 0x33 }).ToArray();
+        using var reader = IshneReader.Open(temp.Write("padded.ecg", padded));
+        Assert.Equal(4, reader.Info.Channels[0].SampleCount);
+    }
+
+    [Fact]
+    public void HandAssembled_ZeroSamples_IsAnEmptyRecording()
+    {
+        using var temp = new TempFolder("ishne");
+        using var reader = IshneReader.Open(temp.Write("empty.ecg", new IshneFileBuilder { Samples = [] }.Build()));
+        Assert.Equal(0, reader.Info.Channels[0].SampleCount);
+        Assert.Equal(0.0, reader.Info.DurationS);
+        reader.Read(0, 0, Span<float>.Empty);
+    }
+
     [Fact]
     public void Sniff_RecognisesMagicOnly()
     {
