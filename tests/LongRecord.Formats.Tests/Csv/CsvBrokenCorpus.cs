@@ -31,7 +31,7 @@ public static class CsvBrokenCorpus
         var longRow = ReplaceLine(good, 32, Line(good, 32) + ",0.5");
         yield return Case("csv-ragged-row-long", longRow, "line 32 has 4 fields, the header has 3", CsvTestText.OffsetOfLine(longRow, 32));
 
-        var headerOnly = "# Northwind demo\ntime_s,L1 (mV),L2 (mV)\n";
+        var headerOnly = "# Brackenfield demo\ntime_s,L1 (mV),L2 (mV)\n";
         yield return Case("csv-header-only", headerOnly, "no data rows after the header", headerOnly.Length);
         var oneRow = "time_s,L1 (mV)\n0.000,0.5\n";
         yield return Case("csv-single-row", oneRow, "only one data row (line 2): two or more are needed", CsvTestText.OffsetOfLine(oneRow, 2));

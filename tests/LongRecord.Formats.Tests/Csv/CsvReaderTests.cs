@@ -105,10 +105,10 @@ public class CsvReaderTests
     public void Comments_BeforeHeader_AndStartLine_AreRead()
     {
         using var temp = new TempFolder("csv");
-        var prologue = "\uFEFF# Northwind Cardiology Clinic demo\n\n#  start: 2026-03-04T08:15:00\n# lead placement: CM5\n";
+        var prologue = "\uFEFF# Brackenfield Cardiology Clinic demo\n\n#  start: 2026-03-04T08:15:00\n# lead placement: CM5\n";
         var text = CsvTestText.Seconds(200, 400, timeFormat: "F3", prologue: prologue, time: i => 10 + i / 200.0).Replace("\n", "\r\n");
         using var reader = CsvRecordingReader.Open(temp.Write("comments.csv", CsvTestText.Bytes(text)));
-        Assert.Equal(["Northwind Cardiology Clinic demo", "lead placement: CM5"], reader.Info.Comments);
+        Assert.Equal(["Brackenfield Cardiology Clinic demo", "lead placement: CM5"], reader.Info.Comments);
 
         // "# start:" is the clock time of time 0; the first row is at 10 s.
         Assert.Equal(new DateOnly(2026, 3, 4), reader.Info.StartDate);

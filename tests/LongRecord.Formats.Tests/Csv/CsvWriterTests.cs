@@ -30,7 +30,7 @@ public class CsvWriterTests
             Leads = [new CsvLead("II"), new CsvLead("V5", "uV")],
             SamplingRateHz = rateHz,
             Start = new DateTime(2026, 3, 4, 8, 15, 0),
-            Comments = ["Northwind Cardiology Clinic, invented demo"],
+            Comments = ["Brackenfield Cardiology Clinic, invented demo"],
         };
         using (var writer = CsvRecordingWriter.Create(path, options))
         {
@@ -45,7 +45,7 @@ public class CsvWriterTests
         Assert.Equal(n, reader.Info.Channels[0].SampleCount);
         Assert.Equal(new DateOnly(2026, 3, 4), reader.Info.StartDate);
         Assert.Equal(new TimeOnly(8, 15, 0), reader.Info.StartTime);
-        Assert.Equal(["Northwind Cardiology Clinic, invented demo"], reader.Info.Comments);
+        Assert.Equal(["Brackenfield Cardiology Clinic, invented demo"], reader.Info.Comments);
         var back = new float[2 * n];
         reader.Read([0, 1], 0, n, back);
         Assert.Equal(signal.AsSpan(0, n).ToArray(), back.AsSpan(0, n).ToArray());

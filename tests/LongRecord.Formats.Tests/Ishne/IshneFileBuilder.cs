@@ -38,7 +38,7 @@ internal sealed class IshneFileBuilder
 
     public string Recorder { get; set; } = "digital";
 
-    public string Proprietary { get; set; } = "Northwind Cardiology Clinic";
+    public string Proprietary { get; set; } = "Brackenfield Cardiology Clinic";
 
     public string Copyright { get; set; } = "demo data";
 

@@ -27,7 +27,7 @@ public class IshneHandAssembledTests
         Assert.Equal("NW-0417", info.Identification.PatientId);
         Assert.Equal("F", info.Identification.Sex);
         Assert.Equal("1961-07-23", info.Identification.BirthDate);
-        Assert.Contains("Northwind Cardiology Clinic", info.Identification.RecordingField);
+        Assert.Contains("Brackenfield Cardiology Clinic", info.Identification.RecordingField);
         Assert.Contains("digital", info.Identification.RecordingField);
         Assert.Equal(["diary: walk 09:10", "slept 23:00"], info.Comments);
         Assert.Equal(new DateOnly(2026, 3, 5), reader.Header.FileDate);

@@ -2,7 +2,7 @@ using LongRecord.Formats.Ishne;
 
 namespace LongRecord.Formats.Tests.Ishne;
 
-/// <summary>Writer options and deterministic test signals for a small invented recording (Northwind clinic scenario).</summary>
+/// <summary>Writer options and deterministic test signals for a small invented recording (Brackenfield clinic scenario).</summary>
 internal static class IshneTestSignals
 {
     public static IshneWriterOptions TwoLeadOptions(short rateHz = 200) => new()
@@ -24,7 +24,7 @@ internal static class IshneTestSignals
         FileDate = new DateOnly(2026, 3, 6),
         Pacemaker = 0,
         RecorderType = "digital",
-        Proprietary = "Northwind Cardiology Clinic",
+        Proprietary = "Brackenfield Cardiology Clinic",
         Copyright = "invented demo data",
         VariableBlockText = "arrived 08:05\nexercise 10:20-10:50",
     };

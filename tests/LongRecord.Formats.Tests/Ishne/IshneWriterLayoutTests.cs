@@ -49,7 +49,7 @@ public class IshneWriterLayoutTests
         Assert.Equal(0, I16(b, 230));
         Assert.Equal("digital", Field(b, 232, 40));
         Assert.Equal(200, I16(b, 272));
-        Assert.Equal("Northwind Cardiology Clinic", Field(b, 274, 80));
+        Assert.Equal("Brackenfield Cardiology Clinic", Field(b, 274, 80));
         Assert.Equal("invented demo data", Field(b, 354, 80));
         Assert.All(b.AsSpan(434, 88).ToArray(), x => Assert.Equal(0, x));
 
