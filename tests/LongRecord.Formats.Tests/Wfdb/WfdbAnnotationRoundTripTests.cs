@@ -91,6 +91,20 @@ public class WfdbAnnotationRoundTripTests
         Assert.Equal(list.Select(a => ((int)a.Code, a.Sample)), events.Select(e => (e.Code, e.Sample)));
     }
 
+    [Theory]
+    [InlineData(0, null)]
+    [InlineData(59, null)]
+    [InlineData(1, "bad\0text")]
+    [InlineData(1, "\u0100")]
+    public void UnwritableAnnotation_ThrowsAndLeavesNoFile(int code, string? aux)
+    {
+        // annotation(5): code 0 with time 0 ends the file and 59–63 are the format's own words; AUX is a byte string.
+        using var folder = new TempFolder("wfdb-ann");
+        var list = new[] { new WfdbAnnotation(10, WfdbAnnotationCode.Normal), new WfdbAnnotation(20, (WfdbAnnotationCode)code, Aux: aux) };
+        Assert.Throws<ArgumentException>(() => WfdbAnnotationWriter.Write(folder.Path("x.atr"), list));
+        Assert.Empty(Directory.GetFiles(folder.FullPath));
+    }
+
     /// <summary>Gaps above 1023 and above 65535 (SKIP), NUM, SUB (also negative), CHN, AUX of odd, even and zero length.</summary>
     private static List<WfdbAnnotation> HandBuilt() =>
     [
