@@ -33,9 +33,9 @@ public sealed class WfdbRecordReader : RecordingReader
     public static WfdbRecordReader Open(string headerPath)
     {
         ArgumentException.ThrowIfNullOrEmpty(headerPath);
-        var path = headerPath.EndsWith(".hea", StringComparison.OrdinalIgnoreCase) || File.Exists(headerPath) && !File.Exists(headerPath + ".hea")
-            ? headerPath
-            : headerPath + ".hea";
+        var isHeader = headerPath.EndsWith(".hea", StringComparison.OrdinalIgnoreCase)
+            || (File.Exists(headerPath) && !File.Exists(headerPath + ".hea"));
+        var path = isHeader ? headerPath : headerPath + ".hea";
         return WfdbRecordOpener.Open(WfdbHeader.Parse(path));
     }
 

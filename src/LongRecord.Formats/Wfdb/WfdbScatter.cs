@@ -24,15 +24,12 @@ internal static class WfdbScatter
         if (map.SamplesPerFrame == 1)
         {
             var p = first * frameSize + map.Slot;
-            var last = p + (output.Length - 1) * frameSize;
-            if (output.Length == 0 || last >= stream.Length)
-            {
-                if (output.Length == 0)
-                {
-                    return;
-                }
 
-                throw new ArgumentOutOfRangeException(nameof(output), "decoded frames do not cover the requested samples");
+            // One range check up front; the loops below then stay inside the decoded frames.
+            if (output.IsEmpty || p + (output.Length - 1) * frameSize >= stream.Length)
+            {
+                ArgumentOutOfRangeException.ThrowIfNotEqual(output.Length, 0, nameof(output));
+                return;
             }
 
             if (map.HasInvalid)
