@@ -56,6 +56,7 @@ internal static class EdfHeaderParser
             f.Fail($"header field 'starttime' is not a time hh.mm.ss ('{timeText}')", 176, "starttime");
         }
 
+        var startDate = ResolveDate(day, month, yy, variant, recording, f);
         var headerBytes = f.Integer(184, 8, "header field 'number of bytes in header record'", "number of bytes in header record");
         var records = f.Integer(236, 8, "header field 'number of data records'", "number of data records");
         if (records < -1)
@@ -112,7 +113,7 @@ internal static class EdfHeaderParser
             Variant = variant,
             PatientField = patient,
             RecordingField = recording,
-            StartDate = ResolveDate(day, month, yy, variant, recording, f),
+            StartDate = startDate,
             StartTime = new TimeOnly(hour, minute, second),
             HeaderBytes = headerBytes,
             DeclaredRecords = records,
@@ -172,24 +173,30 @@ internal static class EdfHeaderParser
 
     private static DateOnly? ResolveDate(int day, int month, int yy, EdfVariant variant, string recording, EdfHeaderFields f)
     {
+        DateOnly? header = null;
+        if (yy >= 0)
+        {
+            var year = EdfDates.ExpandYear(yy);
+            if (month < 1 || month > 12 || day < 1 || day > DateTime.DaysInMonth(year, month))
+            {
+                f.Fail($"header field 'startdate' is not a valid date ('{f.Text(168, 8)}')", 168, "startdate");
+            }
+
+            header = new DateOnly(year, month, day);
+        }
+
         // EDF+ 2.1.3.2: the recording field starts "Startdate dd-MMM-yyyy"; its 4-digit year is the one to trust.
         if (variant != EdfVariant.Plain && EdfIdentificationParser.TryStartDate(recording, out var plusDate))
         {
             return plusDate;
         }
 
-        if (yy < 0)
+        if (header is null)
         {
             f.Fail("header field 'startdate' has year 'yy' but the recording field holds no 'Startdate dd-MMM-yyyy'", 168, "startdate");
         }
 
-        var year = EdfDates.ExpandYear(yy);
-        if (month < 1 || month > 12 || day < 1 || day > DateTime.DaysInMonth(year, month))
-        {
-            f.Fail($"header field 'startdate' is not a valid date ('{f.Text(168, 8)}')", 168, "startdate");
-        }
-
-        return new DateOnly(year, month, day);
+        return header;
     }
 
     private static List<EdfSignalHeader> ParseSignals(EdfHeaderFields f, int ns, bool isBdf, out int recordBytes)

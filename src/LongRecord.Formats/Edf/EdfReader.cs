@@ -1,4 +1,3 @@
-using System.Text;
 using LongRecord.Formats.IO;
 
 namespace LongRecord.Formats.Edf;
@@ -131,8 +130,9 @@ public sealed class EdfReader : RecordingReader
     }
 
     /// <summary>
-    /// True when <paramref name="head"/> (the first bytes of a file, any length) starts like an EDF or BDF header:
-    /// the version field, and where present the date and time digits and the signal count.
+    /// True when <paramref name="head"/> (the first bytes of a file, any length) starts like an EDF or BDF header: the
+    /// version field ("0" and spaces, or 0xFF and seven printable characters, so a BDF with a damaged "BIOSEMI" still
+    /// reaches this reader and its specific message) and, where present, digits in the start date and time fields.
     /// </summary>
     public static bool Sniff(ReadOnlySpan<byte> head)
     {
@@ -142,27 +142,19 @@ public sealed class EdfReader : RecordingReader
         }
 
         var edf = head[0] == (byte)'0' && head[1..8].IndexOfAnyExcept((byte)' ') < 0;
-        var bdf = head[0] == 0xFF && head[1..8].SequenceEqual("BIOSEMI"u8);
+        var bdf = head[0] == 0xFF && head[1..8].IndexOfAnyExceptInRange((byte)' ', (byte)'~') < 0;
         if (!edf && !bdf)
         {
             return false;
         }
 
-        if (head.Length >= 184)
+        // dd.mm.yy and hh.mm.ss: the year may be the literal "yy" (EDF+ after 2084), so it is not checked.
+        foreach (var at in (ReadOnlySpan<int>)[168, 169, 171, 172, 176, 177, 179, 180, 182, 183])
         {
-            foreach (var at in (ReadOnlySpan<int>)[168, 169, 171, 172, 176, 177, 179, 180, 182, 183])
+            if (at < head.Length && !char.IsAsciiDigit((char)head[at]))
             {
-                if (!char.IsAsciiDigit((char)head[at]))
-                {
-                    return false;
-                }
+                return false;
             }
-        }
-
-        if (head.Length >= 256)
-        {
-            var signals = Encoding.ASCII.GetString(head.Slice(252, 4)).Trim();
-            return EdfHeaderFields.TryParseInteger(signals, out var ns) && ns > 0;
         }
 
         return true;
