@@ -51,6 +51,13 @@ internal static class EdfTalParser
 
                 if (region[pos] == 0)
                 {
+                    // "+onset 0x14 0x00" (no annotation at all) is taken as time keeping too: a common slip of writers
+                    // for "+onset 0x14 0x14 0x00" (common practice, no source).
+                    if (first && firstText && timeKeeping)
+                    {
+                        recordOnset = onset;
+                    }
+
                     pos++;
                     break;
                 }
@@ -115,7 +122,7 @@ internal static class EdfTalParser
             Fail($"{what} has no digits", start, region, path, regionOffset, record);
         }
 
-        return double.Parse(Encoding.ASCII.GetString(region[start..pos]), NumberStyles.AllowLeadingSign | NumberStyles.AllowDecimalPoint, CultureInfo.InvariantCulture);
+        return double.Parse(region[start..pos], NumberStyles.AllowLeadingSign | NumberStyles.AllowDecimalPoint, CultureInfo.InvariantCulture);
     }
 
     private static string Show(byte b) => b is >= 32 and < 127 ? $"'{(char)b}'" : $"0x{b:X2}";

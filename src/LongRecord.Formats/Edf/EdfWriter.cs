@@ -33,6 +33,7 @@ public sealed class EdfWriter : IDisposable
     private readonly int _outputCapacity;
     private readonly EdfAnnotationQueue _annotations = new();
     private readonly int _maxAnnotationTal;
+    private readonly bool _oneRate;
     private int _outputRecords;
     private int _recordsWritten;
     private bool _completed;
@@ -51,6 +52,7 @@ public sealed class EdfWriter : IDisposable
         _outputCapacity = Math.Max(1, OutputBytes / _layout.RecordBytes);
         _output = new byte[_outputCapacity * _layout.RecordBytes];
         _maxAnnotationTal = _layout.AnnotationBytes - EdfWriterLayout.MaxTimeKeepingBytes;
+        _oneRate = channels.All(c => c.SamplesPerRecord == channels[0].SamplesPerRecord);
         for (var c = 0; c < channels.Count; c++)
         {
             _pending[c] = new int[channels[c].SamplesPerRecord * 2];
@@ -77,7 +79,7 @@ public sealed class EdfWriter : IDisposable
             throw new ArgumentException($"samples holds {samples.Length} values; {channels.Count} channels × {count} are needed", nameof(samples));
         }
 
-        if (channels.Any(c => c.SamplesPerRecord != channels[0].SamplesPerRecord))
+        if (!_oneRate)
         {
             throw new InvalidOperationException("WriteSamples needs channels of one rate; use Append for channels of different rates");
         }

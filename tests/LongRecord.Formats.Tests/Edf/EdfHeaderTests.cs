@@ -97,6 +97,17 @@ public sealed class EdfHeaderTests : IDisposable
     }
 
     [Fact]
+    public void EdfPlusD_TimeKeepingWithoutTheEmptyAnnotation_IsStillTimeKeeping()
+    {
+        // "+onset 0x14 0x00" instead of EDF+ 2.2.4's "+onset 0x14 0x14 0x00": accepted (common practice, no source).
+        var bytes = Build("EDF+D", "01.01.24", "10.00.00", "1", [new("ECG", 4), new("EDF Annotations", 8)],
+            [new DataRecord([[1, 2, 3, 4]], "+0\u0014\0"), new DataRecord([[1, 2, 3, 4]], "+3\u0014\0")]);
+        using var reader = EdfReader.Open(_folder.Write("short-tk.edf", bytes));
+        Assert.Equal([new RecordingGap(1, 2)], reader.Info.Gaps);
+        Assert.Empty(reader.Info.Events);
+    }
+
+    [Fact]
     public void Sniff_RecognisesEdfAndBdfHeadsOfAnyLength_AndNothingElse()
     {
         var path = _folder.Path("w.edf");
