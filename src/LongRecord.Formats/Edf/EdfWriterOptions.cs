@@ -3,6 +3,7 @@ namespace LongRecord.Formats.Edf;
 /// <summary>What <see cref="EdfWriter"/> writes: the channels, the data-record layout and the EDF+ identification.</summary>
 public sealed record EdfWriterOptions
 {
+    /// <summary>The ordinary signals, in file order; the writer adds the annotation signal after them.</summary>
     public required IReadOnlyList<EdfWriterChannel> Channels { get; init; }
 
     /// <summary>Duration of a data record in seconds (default 1); must be positive and is written in at most 8 characters.</summary>
@@ -20,6 +21,7 @@ public sealed record EdfWriterOptions
     /// <summary>"F" or "M"; null writes "X".</summary>
     public string? PatientSex { get; init; }
 
+    /// <summary>Birth date, written dd-MMM-yyyy; null writes "X".</summary>
     public DateOnly? PatientBirthDate { get; init; }
 
     /// <summary>Patient name; spaces are written as '_' (EDF+ 2.1.3.3).</summary>
@@ -28,8 +30,10 @@ public sealed record EdfWriterOptions
     /// <summary>EDF+ recording field: hospital administration code of the investigation.</summary>
     public string? AdminCode { get; init; }
 
+    /// <summary>EDF+ recording field: code or name of the technician.</summary>
     public string? Technician { get; init; }
 
+    /// <summary>EDF+ recording field: code or name of the equipment.</summary>
     public string? Equipment { get; init; }
 
     /// <summary>Write BDF+C (24-bit samples, 0xFF "BIOSEMI") instead of EDF+C.</summary>

@@ -69,6 +69,9 @@ public sealed class EdfSharedDataTests
         var info = reader.Info;
 
         Assert.Equal("EDF+C", info.FormatDetail);
+        // The header holds 65 signals; the 65th is the annotation signal, which is not a channel.
+        Assert.Equal("65  ", Encoding.ASCII.GetString(bytes, 252, 4));
+        Assert.Equal("EDF Annotations ", Encoding.ASCII.GetString(bytes, 256 + 64 * 16, 16));
         Assert.Equal(EegChannels, info.Channels.Count);
         Assert.All(info.Channels, c => Assert.Equal(160.0, c.SamplingRateHz));
         Assert.Equal("Fc5.", info.Channels[0].Label);
