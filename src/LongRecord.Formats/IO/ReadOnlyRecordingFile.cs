@@ -57,7 +57,7 @@ public sealed class ReadOnlyRecordingFile : IDisposable
             var n = RandomAccess.Read(_handle, destination[done..], offset + done);
             if (n == 0)
             {
-                RecordingFormatException.Throw(Path, $"file ends inside {what} (needs {destination.Length} bytes, has {done})", offset + done);
+                RecordingFormatException.Throw(Path, FormattableString.Invariant($"file ends inside {what} (needs {destination.Length} bytes, has {done})"), offset + done);
             }
 
             done += n;
