@@ -1,6 +1,60 @@
+using System.Diagnostics;
+using BenchmarkDotNet.Running;
+using LongRecord.Benchmarks.Formats;
+
 namespace LongRecord.Benchmarks;
 
+/// <summary>
+/// <c>dotnet run -c Release --project tests/LongRecord.Benchmarks</c> runs the BenchmarkDotNet suites;
+/// <c>-- --short</c> prints quick figures (used by CI: figures only, never a gate);
+/// <c>-- --memory</c> reads a 72 h recording and prints the peak working set.
+/// </summary>
 public static class Program
 {
-    public static int Main(string[] args) => 0;
+    public static int Main(string[] args)
+    {
+        if (args.Contains("--short"))
+        {
+            Short();
+            return 0;
+        }
+
+        if (args.Contains("--memory"))
+        {
+            Memory();
+            return 0;
+        }
+
+        BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
+        return 0;
+    }
+
+    private static void Short()
+    {
+        var buffer = new float[2 * 60 * 250];
+        foreach (var (name, path) in new[] { ("EDF+ decode", BenchmarkRecordings.Edf(2)), ("WFDB 212 decode", BenchmarkRecordings.Wfdb212(2)) })
+        {
+            DecodeBenchmarks.DecodeAll(path, buffer);
+            var best = double.MaxValue;
+            for (var i = 0; i < 5; i++)
+            {
+                var sw = Stopwatch.StartNew();
+                DecodeBenchmarks.DecodeAll(path, buffer);
+                best = Math.Min(best, sw.Elapsed.TotalSeconds);
+            }
+
+            var samples = 2 * 2 * 3600 * BenchmarkRecordings.RateHz;
+            Console.WriteLine(FormattableString.Invariant($"benchmark {name}, 2 h two-lead 250 Hz: {samples / best / 1e6:F0} M samples/s (best of 5, one thread)"));
+        }
+    }
+
+    private static void Memory()
+    {
+        var path = BenchmarkRecordings.Edf(72);
+        var before = Process.GetCurrentProcess().PeakWorkingSet64;
+        var sw = Stopwatch.StartNew();
+        DecodeBenchmarks.DecodeAll(path, new float[2 * 60 * 250]);
+        var peak = Process.GetCurrentProcess().PeakWorkingSet64;
+        Console.WriteLine(FormattableString.Invariant($"72 h two-lead EDF+ read in {sw.Elapsed.TotalSeconds:F2} s; peak working set {peak / 1048576.0:F0} MB (before reading {before / 1048576.0:F0} MB)"));
+    }
 }
