@@ -30,4 +30,15 @@ internal static class CounterRandom
         var u2 = (Mix(h) >> 11) * (1.0 / 9007199254740992.0);
         return Math.Sqrt(-2.0 * Math.Log(u1)) * Math.Cos(2.0 * Math.PI * u2);
     }
+
+    /// <summary>
+    /// Cheap near-normal value (sum of four 16-bit uniforms, scaled to unit variance; bounded at ±3.46) for per-sample
+    /// noise, where the exact tails do not matter and Box–Muller would dominate the render time.
+    /// </summary>
+    public static double NearGaussian(ulong seed, ulong stream, long index)
+    {
+        var h = Hash(seed, stream, index);
+        var sum = (double)(h & 0xFFFF) + ((h >> 16) & 0xFFFF) + ((h >> 32) & 0xFFFF) + (h >> 48);
+        return (sum / 65536.0 - 2.0) * 1.7320508075688772;
+    }
 }
