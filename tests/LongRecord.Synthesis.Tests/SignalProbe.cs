@@ -18,7 +18,7 @@ internal static class SignalProbe
     /// <summary>
     /// R peaks found on the signal (common practice, no source): a slope signal (sum over leads of the absolute central
     /// difference, smoothed over 40 ms) above a quarter of its largest value in the surrounding ±3 s marks QRS regions;
-    /// regions closer than 60 ms merge, and of two regions starting within 250 ms (refractory period) the one with the
+    /// regions closer than 60 ms merge (up to 200 ms in all), and of two regions starting within 250 ms (refractory period) the one with the
     /// steeper slope is kept; the peak is the sample of largest |x − moving average over 0.6 s| in lead 0
     /// within the region ± 40 ms. Returns sample indices relative to <paramref name="leads"/>' first sample.
     /// </summary>
@@ -60,7 +60,7 @@ internal static class SignalProbe
                 continue;
             }
 
-            if (regions.Count > 0 && i - regions[^1].To <= 0.06 * fs)
+            if (regions.Count > 0 && i - regions[^1].To <= 0.06 * fs && i - regions[^1].From <= 0.2 * fs)
             {
                 regions[^1] = (regions[^1].From, i, Math.Max(regions[^1].Peak, smooth[i]));
             }
@@ -118,10 +118,10 @@ internal static class SignalProbe
 
     /// <summary>
     /// QRS width measured on a clean rendered beat (common practice, no source): in each lead whose QRS spans over
-    /// 0.2 mV, the slope |x[n+1] − x[n−1]| is compared with its largest value within R ± 80 ms; walking out from that
-    /// point, onset (offset) is the first sample where the slope drops below 9.2 % of it — the slope ratio a single
+    /// 0.2 mV, the slope |x[n+1] − x[n−1]| is compared with its largest value within R ± 80 ms; onset (offset) is the
+    /// earliest (latest) sample within R − 90 ms … R + 120 ms whose slope reaches 9.2 % of it — the slope ratio a single
     /// Gaussian edge has at its 2 % amplitude point (√(2 ln 50) widths out). Global onset is the earliest over leads,
-    /// offset the latest. Returns (onset, offset) in samples relative to the arrays.
+    /// offset the latest. At tachycardia rates the next T wave's slope can reach into the offset window. Returns (onset, offset) in samples relative to the arrays.
     /// </summary>
     public static (int Onset, int Offset) MeasureQrs(float[][] leads, int rSample, double fs)
     {
@@ -162,17 +162,27 @@ internal static class SignalProbe
                 }
             }
 
+            // Outermost supra-threshold samples within R − 90 ms … R + 120 ms, so that a notch between Q and R (or R
+            // and S), where the slope passes through zero, does not end the QRS early.
             var threshold = 0.092 * peak;
             var a = first;
-            while (a > 1 && Math.Abs(x[a + 1] - x[a - 1]) >= threshold)
+            for (var i = rSample - (int)(0.09 * fs); i < first; i++)
             {
-                a--;
+                if (Math.Abs(x[i + 1] - x[i - 1]) >= threshold)
+                {
+                    a = i;
+                    break;
+                }
             }
 
             var b = last;
-            while (b < x.Length - 2 && Math.Abs(x[b + 1] - x[b - 1]) >= threshold)
+            for (var i = rSample + (int)(0.12 * fs); i > last; i--)
             {
-                b++;
+                if (Math.Abs(x[i + 1] - x[i - 1]) >= threshold)
+                {
+                    b = i;
+                    break;
+                }
             }
 
             onset = Math.Min(onset, a);
