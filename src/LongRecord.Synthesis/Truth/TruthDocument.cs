@@ -47,7 +47,8 @@ public sealed record TruthDocument
         StartDateTime = recording.StartDateTime.ToString("yyyy-MM-ddTHH:mm:ss", CultureInfo.InvariantCulture),
         Leads = recording.Leads,
         Definitions = s_definitions,
-        Beats = recording.Truth.Beats.ToArray(),
+        // The lazy view: the serializer enumerates it while writing, so the beat list is never copied.
+        Beats = recording.Truth.Beats,
         PWaves = recording.Truth.PWaves,
         Rhythms = recording.Truth.Rhythms,
         Noise = recording.Truth.Noise,
