@@ -105,4 +105,21 @@ public sealed class RhythmStatisticsTests
         Assert.True(SignalProbe.CoefficientOfVariation(rr) > 0.06, $"CV {SignalProbe.CoefficientOfVariation(rr):0.000}");
         Assert.True(rec.Truth.Beats.Where(b => b.RTimeS >= mat.StartS && b.RTimeS <= mat.EndS).Select(b => b.PShape).Distinct().Count() >= 3);
     }
+
+    // Sinus bradycardia below 50 bpm (its definition, common practice, no source) and sinus arrest pauses of the
+    // scripted length: the longest measured RR in each pause within 10 ms of it (the R-time criterion of the issue).
+    [Fact]
+    public void BradycardiaAndPauses_MeasuredOnTheSignal()
+    {
+        var rec = ScenarioFiles.Recording("pauses-and-av-block");
+        var brady = SignalProbe.Segment(rec, "sinus-bradycardia");
+        var rr = MeasuredRr(rec, brady.StartS, brady.EndS);
+        Assert.True(60.0 / rr.Average() < 50, $"bradycardia at {60.0 / rr.Average():0.0} bpm");
+        foreach (var pause in rec.Truth.Rhythms.Where(r => r.Kind == "pause"))
+        {
+            var longest = MeasuredRr(rec, pause.StartS - 0.01, pause.EndS + 0.01).Max();
+            Assert.True(Math.Abs(longest - pause.Parameters["durationS"]) <= 0.01, $"pause {longest:0.000} s, scripted {pause.Parameters["durationS"]} s");
+            Assert.InRange(longest, 2.0, 4.0);
+        }
+    }
 }
