@@ -72,7 +72,7 @@ internal static class WaveCatalogue
 
     public static readonly IReadOnlyList<PWaveShape> PShapes =
     [
-        new("sinus", [new("P", 0.0, 0.022, new(0.18, 0.07, 0.10)), new("P", 0.025, 0.014, new(0.0, -0.05, 0.0))]),
+        new("sinus", [new("P", 0.0, 0.022, new(0.20, 0.07, 0.10)), new("P", 0.025, 0.014, new(0.0, -0.05, 0.0))]),
         new("inverted", [new("P", 0.0, 0.018, new(-0.15, 0.08, -0.07))]),
         new("biphasic", [new("P", -0.016, 0.013, new(0.11, -0.06, 0.06)), new("P", 0.016, 0.013, new(-0.11, 0.06, -0.05))]),
         new("narrow-upright", [new("P", 0.0, 0.014, new(0.12, -0.09, 0.08))]),
@@ -84,7 +84,7 @@ internal static class WaveCatalogue
     public static readonly ViewAmplitudes FlutterWave = new(-0.20, 0.12, -0.06);
 
     /// <summary>Mean amplitude of fibrillatory waves per view, mV (ours: fine f waves in II, coarser in V1).</summary>
-    public static readonly ViewAmplitudes FibrillatoryWave = new(0.04, 0.09, 0.03);
+    public static readonly ViewAmplitudes FibrillatoryWave = new(0.035, 0.09, 0.03);
 
     /// <summary>Amplitude of ventricular flutter and fibrillation waves per view, mV (ours).</summary>
     public static readonly ViewAmplitudes VentricularWave = new(1.0, 0.8, 1.1);
