@@ -13,6 +13,8 @@ public static class Program
         var root = new RootCommand("LongRecord: overnight analysis of long ambulatory ECG recordings (Holter, patch).")
         {
             InspectCommand.Create(stdout, stderr),
+            SynthCommand.Create(stdout, stderr),
+            DemoCommand.Create(stdout, stderr),
         };
         var parse = root.Parse(args);
         return parse.Invoke(new InvocationConfiguration { Output = stdout, Error = stderr });

@@ -104,6 +104,31 @@ public sealed class SyntheticRecording
 
     public RecordingTruth Truth { get; }
 
+    /// <summary>
+    /// The scenario's diary entries laid on the recording's timeline (repeated with the timeline, cut with it): events a
+    /// recorder stores in the file, not truth.
+    /// </summary>
+    public IReadOnlyList<DiaryEntry> Diary
+    {
+        get
+        {
+            var list = new List<DiaryEntry>();
+            var cycle = Scenario.TimelineDurationS;
+            for (var offset = 0.0; cycle > 0 && offset < DurationS; offset += cycle)
+            {
+                foreach (var e in Scenario.Diary)
+                {
+                    if (offset + e.AtS < DurationS)
+                    {
+                        list.Add(e with { AtS = offset + e.AtS });
+                    }
+                }
+            }
+
+            return list;
+        }
+    }
+
     /// <summary>Physical unit of every lead.</summary>
     public string PhysicalUnit => "mV";
 

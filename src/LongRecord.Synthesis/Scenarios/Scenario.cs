@@ -25,9 +25,17 @@ public sealed record Scenario
     public required IReadOnlyList<ScenarioSegment> Segments { get; init; }
     public IReadOnlyList<NoiseStretch> Noise { get; init; } = [];
 
+    /// <summary>Patient-diary and button events, timed from the start of the timeline (repeated with it).</summary>
+    public IReadOnlyList<DiaryEntry> Diary { get; init; } = [];
+
     /// <summary>Length of one pass of the timeline, seconds.</summary>
     public double TimelineDurationS => Segments.Sum(s => s.DurationS);
 }
+
+/// <summary>A patient-diary or event-button entry: the recorder writes it into the file as a timed event.</summary>
+/// <param name="AtS">Seconds from the start of the timeline.</param>
+/// <param name="Text">What the patient pressed or wrote, for example "palpitations".</param>
+public sealed record DiaryEntry(double AtS, string Text);
 
 /// <summary>Invented patient identification written into the recording header.</summary>
 public sealed record ScenarioPatient

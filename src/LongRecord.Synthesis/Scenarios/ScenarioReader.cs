@@ -34,6 +34,7 @@ internal static class ScenarioReader
         var segments = ReadSegments(r, errors);
         var timeline = segments.Sum(x => x.DurationS);
         var noise = ReadNoise(r, errors, leads, timeline);
+        var diary = ReadDiary(r, timeline);
         r.RejectUnknown();
 
         if (name is null || start is null)
@@ -56,7 +57,32 @@ internal static class ScenarioReader
             Background = background,
             Segments = segments,
             Noise = noise,
+            Diary = diary,
         };
+    }
+
+    private static IReadOnlyList<DiaryEntry> ReadDiary(JsonObjectReader r, double timelineS)
+    {
+        var items = r.Array("diary");
+        if (items is null)
+        {
+            return [];
+        }
+
+        var entries = new List<DiaryEntry>();
+        for (var i = 0; i < items.Count; i++)
+        {
+            var er = r.Child(items[i], $"diary[{i}]");
+            var at = er.Number("atS", 0, Math.Max(0, timelineS), required: true);
+            var text = er.String("text", required: true);
+            er.RejectUnknown();
+            if (at is double a && text is not null)
+            {
+                entries.Add(new DiaryEntry(a, text));
+            }
+        }
+
+        return entries.OrderBy(e => e.AtS).ToArray();
     }
 
     private static DateTime? ReadDateTime(JsonObjectReader r, string field)
