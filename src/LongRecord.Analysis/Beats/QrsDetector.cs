@@ -50,6 +50,8 @@ public sealed class QrsDetector
     private float[] _scratch = [];
 
     private long _n;
+    private int _slot;
+    private int _windowSlot;
     private bool _learned;
     private double _spk;
     private double _npk;
@@ -120,7 +122,7 @@ public sealed class QrsDetector
 
         for (var i = 0; i < count; i++)
         {
-            var slot = (int)(_n % _ring);
+            var slot = _slot;
             for (var k = 0; k < _leads; k++)
             {
                 FrontEnd(k, bp[k * count + i], slot);
@@ -139,6 +141,8 @@ public sealed class QrsDetector
             }
 
             _n++;
+            _slot = _slot + 1 == _ring ? 0 : _slot + 1;
+            _windowSlot = _windowSlot + 1 == _window ? 0 : _windowSlot + 1;
         }
     }
 
@@ -160,7 +164,7 @@ public sealed class QrsDetector
         h[1] = h[0];
         h[0] = x;
         var sq = d * d;
-        var w = (int)(_n % _window);
+        var w = _windowSlot;
         _integralSum[k] += sq - _squaredRing[k][w];
         _squaredRing[k][w] = sq;
         _bandPassed[k][slot] = x;
@@ -169,8 +173,8 @@ public sealed class QrsDetector
     }
 
     public static double Cap = 1.5;
-    public static double Low = 5, High = 15, WindowMs = 150, Exponent = 0.5, Coef = 0.3125;
-    public static double Attack = 0.5;
+    public static double Low = 5, High = 15, WindowMs = 120, Exponent = 0.75, Coef = 0.3125;
+    public static double Attack = 0.75;
 
     private double Fuse(int slot)
     {
@@ -178,7 +182,9 @@ public sealed class QrsDetector
         for (var k = 0; k < _leads; k++)
         {
             // Clipped so that an artefact on one lead cannot outweigh the others.
-            f += _leadWeight[k] * Math.Min(Cap, Math.Pow(_integrated[k][slot] / _leadLevel[k], Exponent));
+            // Compression x^0.75 = sqrt(x·sqrt(x)).
+            var x = _integrated[k][slot] / _leadLevel[k];
+            f += _leadWeight[k] * Math.Min(Cap, Math.Sqrt(x * Math.Sqrt(x)));
             wsum += _leadWeight[k];
         }
 
@@ -221,8 +227,14 @@ public sealed class QrsDetector
             return;
         }
 
-        var v = F(m);
-        if (v <= F(m - 1) || v < F(m + 1))
+        var ms = _slot - _peakHalfWidth;
+        if (ms < 0)
+        {
+            ms += _ring;
+        }
+
+        var v = _fused[ms];
+        if (v <= _fused[ms == 0 ? _ring - 1 : ms - 1] || v < _fused[ms + 1 == _ring ? 0 : ms + 1])
         {
             return;
         }
@@ -392,32 +404,26 @@ public sealed class QrsDetector
         return best;
     }
 
+    // The centre of the QRS slope energy across leads: robust for broad and paced complexes, where the largest
+    // deflection can come late in the complex.
     private long LocateFiducial(long pos)
     {
-        var lead = 0;
-        double bestScore = -1;
-        for (var k = 0; k < _leads; k++)
+        double sum = 0, moment = 0;
+        var from = Math.Max(pos - _window - _delay, _n - _ring + 1);
+        for (var t = from; t <= pos; t++)
         {
-            var s = _leadWeight[k] * Math.Sqrt(_integrated[k][(int)(pos % _ring)] / _leadLevel[k]);
-            if (s > bestScore)
+            double e = 0;
+            for (var k = 0; k < _leads; k++)
             {
-                bestScore = s;
-                lead = k;
+                var v = _slope[k][(int)(t % _ring)];
+                e += _leadWeight[k] * v * v / _leadLevel[k];
             }
+
+            sum += e;
+            moment += e * (t - from);
         }
 
-        var at = pos;
-        double max = -1;
-        for (var t = Math.Max(pos - _window - _delay, _n - _ring + 1); t <= pos; t++)
-        {
-            var v = Math.Abs(_bandPassed[lead][(int)(t % _ring)]);
-            if (v > max)
-            {
-                max = v;
-                at = t;
-            }
-        }
-
+        var at = sum > 0 ? from + (long)Math.Round(moment / sum) : pos;
         return Math.Max(0, at - _delay);
     }
 
