@@ -95,7 +95,18 @@ public sealed class QrsDetector
         _rrAverage = _fs;
     }
 
+    /// <summary>Detections not yet taken, in time order (fiducial sample indices).</summary>
     public IReadOnlyList<long> Detections => _output;
+
+    /// <summary>Moves the detections made so far into <paramref name="into"/> (in time order) and forgets them.</summary>
+    public void TakeDetections(List<long> into)
+    {
+        into.AddRange(_output);
+        _output.Clear();
+    }
+
+    /// <summary>Samples fed so far.</summary>
+    public long SamplesProcessed => _n;
 
     public Action<long, double, double>? Trace { get; set; }
 
@@ -175,6 +186,7 @@ public sealed class QrsDetector
     public static double Cap = 1.5;
     public static double Low = 5, High = 15, WindowMs = 120, Exponent = 0.75, Coef = 0.3125;
     public static double Attack = 0.75;
+    public static int FidWin = 2;
 
     private double Fuse(int slot)
     {
@@ -214,6 +226,12 @@ public sealed class QrsDetector
         _spk = 0.5 * fmax;
         _npk = 0.1 * fmax;
         _learned = true;
+
+        // The learning period's own beats: judged once the levels exist.
+        for (long m = 1; m + _peakHalfWidth < _learnSamples; m++)
+        {
+            CandidateAt(m, (int)m);
+        }
     }
 
     private float F(long t) => _fused[(int)(t % _ring)];
@@ -233,13 +251,18 @@ public sealed class QrsDetector
             ms += _ring;
         }
 
+        CandidateAt(m, ms);
+    }
+
+    private void CandidateAt(long m, int ms)
+    {
         var v = _fused[ms];
         if (v <= _fused[ms == 0 ? _ring - 1 : ms - 1] || v < _fused[ms + 1 == _ring ? 0 : ms + 1])
         {
             return;
         }
 
-        for (var j = m - _peakHalfWidth; j <= m + _peakHalfWidth; j++)
+        for (var j = Math.Max(0, m - _peakHalfWidth); j <= m + _peakHalfWidth; j++)
         {
             if (j != m && (F(j) > v || (F(j) == v && j < m)))
             {
@@ -393,7 +416,7 @@ public sealed class QrsDetector
         for (var k = 0; k < _leads; k++)
         {
             double m = 0;
-            for (var t = Math.Max(from, _n - _ring + 1); t <= pos; t++)
+            for (var t = Math.Max(Math.Max(0, from), _n - _ring + 1); t <= pos; t++)
             {
                 m = Math.Max(m, _slope[k][(int)(t % _ring)]);
             }
@@ -409,7 +432,7 @@ public sealed class QrsDetector
     private long LocateFiducial(long pos)
     {
         double sum = 0, moment = 0;
-        var from = Math.Max(pos - _window - _delay, _n - _ring + 1);
+        var from = Math.Max(Math.Max(0, pos - FidWin * _window - _delay), _n - _ring + 1);
         for (var t = from; t <= pos; t++)
         {
             double e = 0;
