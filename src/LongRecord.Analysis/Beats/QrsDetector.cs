@@ -51,7 +51,8 @@ public sealed class QrsDetector
 
     private long _n;
     private int _slot;
-    private int _windowSlot;
+    private readonly int[] _windowSlots;
+    private readonly int _chunk;
     private bool _learned;
     private double _spk;
     private double _npk;
@@ -69,7 +70,9 @@ public sealed class QrsDetector
         _peakHalfWidth = Math.Max(1, Ms(80));
         _delay = Ms(35);
         _learnSamples = Ms(2000);
-        _ring = Ms(5000);
+        _ring = Ms(8000);
+        _chunk = Math.Max(1, Ms(1000));
+        _windowSlots = new int[leads];
         _bandPass = new BiquadCascade[leads];
         _derivativeHistory = new float[leads][];
         _squaredRing = new float[leads][];
@@ -131,29 +134,36 @@ public sealed class QrsDetector
             _bandPass[k].Process(lead);
         }
 
-        for (var i = 0; i < count; i++)
+        // The front end runs lead by lead over chunks of at most one second (tight loops); the fusion and the
+        // decisions then run sample by sample, reading the rings no further back than they hold.
+        for (var done = 0; done < count;)
         {
-            var slot = _slot;
+            var chunk = Math.Min(count - done, _chunk);
             for (var k = 0; k < _leads; k++)
             {
-                FrontEnd(k, bp[k * count + i], slot);
+                FrontEnd(k, bp.Slice(k * count + done, chunk));
             }
 
-            if (_learned)
+            for (var i = 0; i < chunk; i++)
             {
-                _fused[slot] = (float)Fuse(slot);
-                Trace?.Invoke(_n, _fused[slot], Threshold1);
-                FindCandidate();
-                SearchBackIfDue(_n - _peakHalfWidth);
-            }
-            else if (_n + 1 == _learnSamples)
-            {
-                Learn();
+                var slot = _slot;
+                if (_learned)
+                {
+                    _fused[slot] = (float)Fuse(slot);
+                    Trace?.Invoke(_n, _fused[slot], Threshold1);
+                    FindCandidate();
+                    SearchBackIfDue(_n - _peakHalfWidth);
+                }
+                else if (_n + 1 == _learnSamples)
+                {
+                    Learn();
+                }
+
+                _n++;
+                _slot = _slot + 1 == _ring ? 0 : _slot + 1;
             }
 
-            _n++;
-            _slot = _slot + 1 == _ring ? 0 : _slot + 1;
-            _windowSlot = _windowSlot + 1 == _window ? 0 : _windowSlot + 1;
+            done += chunk;
         }
     }
 
@@ -165,22 +175,46 @@ public sealed class QrsDetector
 
     private int Ms(double ms) => (int)Math.Round(ms * 0.001 * _fs);
 
-    // Derivative, squaring and moving-window integration of the paper, per lead.
-    private void FrontEnd(int k, float x, int slot)
+    // Derivative, squaring and moving-window integration of the paper, for one lead over a chunk whose first sample
+    // is sample _n; results go into the rings at the chunk's slots.
+    private void FrontEnd(int k, ReadOnlySpan<float> x)
     {
         var h = _derivativeHistory[k];
-        var d = (2 * x + h[0] - h[2] - 2 * h[3]) * (float)(_fs / 8.0);
-        h[3] = h[2];
-        h[2] = h[1];
-        h[1] = h[0];
-        h[0] = x;
-        var sq = d * d;
-        var w = _windowSlot;
-        _integralSum[k] += sq - _squaredRing[k][w];
-        _squaredRing[k][w] = sq;
-        _bandPassed[k][slot] = x;
-        _slope[k][slot] = Math.Abs(d);
-        _integrated[k][slot] = (float)Math.Max(0, _integralSum[k] / _window);
+        float h0 = h[0], h1 = h[1], h2 = h[2], h3 = h[3];
+        var squared = _squaredRing[k];
+        var bandPassed = _bandPassed[k];
+        var slope = _slope[k];
+        var integrated = _integrated[k];
+        var sum = _integralSum[k];
+        var w = _windowSlots[k];
+        var slot = _slot;
+        var scale = (float)(_fs / 8.0);
+        var inverseWindow = 1.0 / _window;
+        for (var i = 0; i < x.Length; i++)
+        {
+            var v = x[i];
+            // Five-point derivative of the paper: y = (2x[n] + x[n−1] − x[n−3] − 2x[n−4]) / 8 (per sample interval).
+            var d = (2 * v + h0 - h2 - 2 * h3) * scale;
+            h3 = h2;
+            h2 = h1;
+            h1 = h0;
+            h0 = v;
+            var sq = d * d;
+            sum += sq - squared[w];
+            squared[w] = sq;
+            w = w + 1 == _window ? 0 : w + 1;
+            bandPassed[slot] = v;
+            slope[slot] = Math.Abs(d);
+            integrated[slot] = (float)Math.Max(0, sum * inverseWindow);
+            slot = slot + 1 == _ring ? 0 : slot + 1;
+        }
+
+        h[0] = h0;
+        h[1] = h1;
+        h[2] = h2;
+        h[3] = h3;
+        _integralSum[k] = sum;
+        _windowSlots[k] = w;
     }
 
     public static double Cap = 1.5;
@@ -394,7 +428,8 @@ public sealed class QrsDetector
             }
 
             double between = 0;
-            var from = Math.Max(Math.Max(0, _lastEmitted + _refractory + _window), pos - _ring + _peakHalfWidth + 1);
+            // No further back than the rings hold behind a chunk the front end has already written ahead.
+            var from = Math.Max(Math.Max(0, _lastEmitted + _refractory + _window), pos - _ring + _chunk + _peakHalfWidth + 1);
             for (var t = from; t < pos - _window; t++)
             {
                 between = Math.Max(between, _integrated[k][(int)(t % _ring)]);
@@ -416,7 +451,7 @@ public sealed class QrsDetector
         for (var k = 0; k < _leads; k++)
         {
             double m = 0;
-            for (var t = Math.Max(Math.Max(0, from), _n - _ring + 1); t <= pos; t++)
+            for (var t = Math.Max(Math.Max(0, from), _n + _chunk - _ring + 1); t <= pos; t++)
             {
                 m = Math.Max(m, _slope[k][(int)(t % _ring)]);
             }
@@ -432,7 +467,7 @@ public sealed class QrsDetector
     private long LocateFiducial(long pos)
     {
         double sum = 0, moment = 0;
-        var from = Math.Max(Math.Max(0, pos - FidWin * _window - _delay), _n - _ring + 1);
+        var from = Math.Max(Math.Max(0, pos - FidWin * _window - _delay), _n + _chunk - _ring + 1);
         for (var t = from; t <= pos; t++)
         {
             double e = 0;

@@ -11,26 +11,25 @@ namespace LongRecord.Analysis.Conditioning;
 /// </summary>
 public sealed class EcgConditioner
 {
-    private readonly BiquadCascade _highPass;
-    private readonly BiquadCascade[] _notches;
+    private readonly BiquadCascade _filter;
     private bool _started;
     private float _last;
 
     public EcgConditioner(double samplingRateHz, ConditioningSettings? settings = null)
     {
         settings ??= ConditioningSettings.Default;
-        _highPass = new BiquadCascade(new NWaves.Filters.Butterworth.HighPassFilter(settings.HighPassHz / samplingRateHz, 2).Tf);
-        var notches = new List<BiquadCascade>();
+        // One cascade (high-pass sections, then the notches) so all sections run in one loop over the samples.
+        var sections = DesignFilter.TfToSos(new NWaves.Filters.Butterworth.HighPassFilter(settings.HighPassHz / samplingRateHz, 2).Tf).ToList();
         foreach (var mains in settings.MainsHz)
         {
             // A notch only makes sense well below the Nyquist frequency.
             if (mains < 0.45 * samplingRateHz)
             {
-                notches.Add(new BiquadCascade([DesignFilter.IirNotch(mains / samplingRateHz, settings.NotchQ)]));
+                sections.Add(DesignFilter.IirNotch(mains / samplingRateHz, settings.NotchQ));
             }
         }
 
-        _notches = notches.ToArray();
+        _filter = new BiquadCascade(sections);
     }
 
     /// <summary>Conditions <paramref name="signal"/> in place.</summary>
@@ -45,36 +44,35 @@ public sealed class EcgConditioner
         {
             var first = FirstValid(signal);
             _last = first;
-            _highPass.SettleAt(first);
-            foreach (var n in _notches)
-            {
-                n.SettleAt(0);
-            }
+            _filter.SettleAt(first);
 
             _started = true;
         }
 
         // Hold the last valid value through gaps so the filters stay finite; restore NaN afterwards.
         bool[]? gap = null;
-        for (var i = 0; i < signal.Length; i++)
+        if (ContainsNaN(signal))
         {
-            if (float.IsNaN(signal[i]))
+            gap = new bool[signal.Length];
+            for (var i = 0; i < signal.Length; i++)
             {
-                gap ??= new bool[signal.Length];
-                gap[i] = true;
-                signal[i] = _last;
+                if (float.IsNaN(signal[i]))
+                {
+                    gap[i] = true;
+                    signal[i] = _last;
+                }
+                else
+                {
+                    _last = signal[i];
+                }
             }
-            else
-            {
-                _last = signal[i];
-            }
+        }
+        else
+        {
+            _last = signal[^1];
         }
 
-        _highPass.Process(signal);
-        foreach (var n in _notches)
-        {
-            n.Process(signal);
-        }
+        _filter.Process(signal);
 
         if (gap is not null)
         {
@@ -86,6 +84,36 @@ public sealed class EcgConditioner
                 }
             }
         }
+    }
+
+    private static bool ContainsNaN(ReadOnlySpan<float> x)
+    {
+        var i = 0;
+        if (System.Numerics.Vector.IsHardwareAccelerated)
+        {
+            var w = System.Numerics.Vector<float>.Count;
+            var v = System.Runtime.InteropServices.MemoryMarshal.Cast<float, System.Numerics.Vector<float>>(x);
+            foreach (var block in v)
+            {
+                // NaN is the only value unequal to itself.
+                if (!System.Numerics.Vector.EqualsAll(block, block))
+                {
+                    return true;
+                }
+            }
+
+            i = v.Length * w;
+        }
+
+        for (; i < x.Length; i++)
+        {
+            if (float.IsNaN(x[i]))
+            {
+                return true;
+            }
+        }
+
+        return false;
     }
 
     private static float FirstValid(ReadOnlySpan<float> x)
