@@ -1,0 +1,116 @@
+namespace LongRecord.Analysis.Beats.Classification;
+
+/// <summary>
+/// The rules that turn a beat's shape (against the recording's normal template) and its timing (against the local
+/// rhythm) into an EC57 class.
+/// <list type="bullet">
+/// <item>V: a shape unlike the normal one and not narrower than it, premature; or, on time, clearly unlike it and
+/// either from a cluster whose beats are mostly premature or clearly wide.</item>
+/// <item>S: a normal-like shape, premature against the local rhythm and abruptly shorter than the RR before, followed
+/// by a longer RR (the pause) or by more premature beats (a run); runs continue while the RR stays short and
+/// steady. Never during irregularly irregular rhythm (atrial fibrillation): conducted beats there are N.</item>
+/// <item>Q: no usable signal, or a noisy window.</item>
+/// </list>
+/// </summary>
+internal sealed class BeatDecision
+{
+    private readonly ClassificationSettings _s;
+    private readonly RhythmContext _rhythm;
+    private int _run;
+
+    public BeatDecision(ClassificationSettings settings, RhythmContext rhythm)
+    {
+        _s = settings;
+        _rhythm = rhythm;
+    }
+
+    public BeatClass PreviousClass { get; private set; } = BeatClass.N;
+
+    public (BeatClass Class, BeatFlags Flags) Decide(in BeatClassifier.Pending beat, double rrNextS)
+    {
+        var local = _rhythm.LocalNormalRr;
+        var rrPrev = beat.RrPrevS;
+        var rrBefore = _rhythm.Rr(1);
+        var premature = !double.IsNaN(local) && !double.IsNaN(rrPrev) && rrPrev < _s.PrematureRatio * local;
+        var flags = premature ? BeatFlags.Premature : BeatFlags.None;
+
+        BeatClass cls;
+        if (!beat.Valid || beat.Noise > _s.NoiseLimit)
+        {
+            cls = BeatClass.Q;
+        }
+        else
+        {
+            var narrower = beat.ExtraWidthMs < -_s.NarrowerMs;
+            var normalShape = beat.IsNormalTemplate || (beat.CorrelationToNormal >= _s.NormalCorrelation && beat.ExtraWidthMs < _s.WideExtraMs);
+            if (!normalShape && !narrower)
+            {
+                var clearlyDifferent = beat.CorrelationToNormal < _s.DifferentCorrelation;
+                var wide = beat.ExtraWidthMs >= _s.WideExtraMs;
+                var ectopicCluster = beat.TemplatePrematureShare >= 0.5;
+                cls = premature || (clearlyDifferent && (ectopicCluster || wide)) ? BeatClass.V : BeatClass.N;
+            }
+            else
+            {
+                cls = Supraventricular(rrPrev, rrBefore, rrNextS, local, premature, beat.PWave) ? BeatClass.S : BeatClass.N;
+            }
+        }
+
+        Follow(cls, rrPrev);
+        return (cls, flags);
+    }
+
+    private bool Supraventricular(double rrPrev, double rrBefore, double rrNext, double local, bool premature, sbyte pWave)
+    {
+        if (double.IsNaN(local) || double.IsNaN(rrPrev) || Fibrillation(pWave))
+        {
+            return false;
+        }
+
+        if (PreviousClass == BeatClass.S)
+        {
+            // Inside a run: the RR stays short against the rhythm before the run, and steady.
+            return _run < _s.MaxRunBeats && premature && Math.Abs(rrPrev - rrBefore) <= _s.RunSteadiness * rrBefore;
+        }
+
+        var abrupt = double.IsNaN(rrBefore) || rrPrev < _s.AbruptRatio * rrBefore;
+        var pauseOrRun = double.IsNaN(rrNext) || rrNext >= _s.PauseRatio * rrPrev || rrNext < _s.PrematureRatio * local;
+        return premature && abrupt && pauseOrRun;
+    }
+
+    private bool Fibrillation(sbyte pWave)
+    {
+        if (pWave == 1)
+        {
+            return false;
+        }
+
+        var irregularity = _rhythm.Irregularity();
+        return irregularity > _s.IrregularityThreshold;
+    }
+
+    private void Follow(BeatClass cls, double rrPrev)
+    {
+        if (cls == BeatClass.V)
+        {
+            _rhythm.MarkLatestEctopic();
+        }
+
+        // The local rhythm follows supraventricular RRs, but not those inside a run, which would pull it to the
+        // run's own rate; an isolated premature RR and the pause after it balance out in the median.
+        var supraventricular = cls is BeatClass.N or BeatClass.S && PreviousClass is BeatClass.N or BeatClass.S;
+        if (supraventricular && !double.IsNaN(rrPrev) && !(cls == BeatClass.S && PreviousClass == BeatClass.S))
+        {
+            _rhythm.AddNormalRr(rrPrev);
+        }
+
+        _run = cls == BeatClass.S ? _run + 1 : 0;
+        if (_run >= _s.MaxRunBeats)
+        {
+            // A run this long is a new rhythm, not a string of premature beats: the local rhythm starts again from it.
+            _rhythm.ResetNormal();
+        }
+
+        PreviousClass = cls;
+    }
+}
