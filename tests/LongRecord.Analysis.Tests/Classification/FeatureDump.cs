@@ -21,7 +21,7 @@ public sealed class FeatureDump
 
         var db = Environment.GetEnvironmentVariable("LONGRECORD_DUMP_DB") ?? "mitdb";
         using var w = new StreamWriter(path);
-        w.WriteLine("rec,sample,ref,rhythm,cls,valid,tmpl,isnorm,corr,amp,width,extra,noise,rrprev,rrnext,local,irr");
+        w.WriteLine("rec,sample,ref,rhythm,cls,valid,tmpl,isnorm,corr,amp,width,extra,noise,rrprev,rrnext,local,irr,atr,nnoise");
         foreach (var name in SharedData.Records(db))
         {
             var rec = ReferenceRecord.Load(db, name);
@@ -66,7 +66,7 @@ public sealed class FeatureDump
 
                 var rh = rhythmAt.LastOrDefault(a => a.Sample <= p.Sample).Aux ?? "";
                 w.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                    $"{name},{p.Sample},{label},{rh.Trim('\0', '(')},{cls},{(p.Valid ? 1 : 0)},{p.Template},{(p.IsNormalTemplate ? 1 : 0)},{p.CorrelationToNormal:F3},{p.AmplitudeToNormal:F3},{p.WidthMs:F1},{p.ExtraWidthMs:F1},{p.Noise:F3},{p.RrPrevS:F3},{rrNext:F3},{local:F3},{irr:F4}"));
+                    $"{name},{p.Sample},{label},{rh.Trim('\0', '(')},{cls},{(p.Valid ? 1 : 0)},{p.Template},{(p.IsNormalTemplate ? 1 : 0)},{p.CorrelationToNormal:F3},{p.AmplitudeToNormal:F3},{p.WidthMs:F1},{p.ExtraWidthMs:F1},{p.Noise:F3},{p.RrPrevS:F3},{rrNext:F3},{local:F3},{irr:F4},{p.AtrialCorrelation:F3},{p.NormalNoise:F3}"));
             };
             var before = (int)Math.Round(0.5 * fs);
             var after = (int)Math.Round(0.7 * fs);

@@ -30,7 +30,7 @@ public sealed class BeatClassifier
         _fs = samplingRateHz;
         _settings = settings ?? ClassificationSettings.Default;
         _extractor = new ShapeExtractor(samplingRateHz, leads, _settings);
-        _templates = new TemplateSet(leads, _extractor.Segment, _settings);
+        _templates = new TemplateSet(leads, _extractor.Segment, _extractor.AtrialLength, _settings);
         _rhythm = new RhythmContext(_settings);
         _shape = _extractor.NewShape();
         _decision = new BeatDecision(_settings, _rhythm);
@@ -73,6 +73,8 @@ public sealed class BeatClassifier
             (beat.CorrelationToNormal, beat.AmplitudeToNormal, _) = beat.IsNormalTemplate
                 ? (match.Correlation, match.Amplitude, 0)
                 : _templates.BestShift(_shape, normal);
+            beat.AtrialCorrelation = TemplateSet.AtrialCorrelation(_shape, normal);
+            beat.NormalNoise = (float)normal.NoiseRatio;
             var normalWidth = float.IsNaN(measurements.QrsWidthMs) || double.IsNaN(normal.WidthMs) ? normal.SpreadMs : normal.WidthMs;
             beat.ExtraWidthMs = width - normalWidth;
         }
@@ -125,5 +127,7 @@ public sealed class BeatClassifier
         public double ExtraWidthMs;
         public float Noise;
         public double TemplatePrematureShare;
+        public double AtrialCorrelation;
+        public float NormalNoise;
     }
 }

@@ -17,6 +17,7 @@ internal sealed class BeatDecision
     private readonly ClassificationSettings _s;
     private readonly RhythmContext _rhythm;
     private int _run;
+    private double _atrialSimilarity = 1;
 
     public BeatDecision(ClassificationSettings settings, RhythmContext rhythm)
     {
@@ -43,16 +44,23 @@ internal sealed class BeatDecision
         {
             var narrower = beat.ExtraWidthMs < -_s.NarrowerMs;
             var normalShape = beat.IsNormalTemplate || (beat.CorrelationToNormal >= _s.NormalCorrelation && beat.ExtraWidthMs < _s.WideExtraMs);
-            if (!normalShape && !narrower)
+            var clearlyDifferent = beat.CorrelationToNormal < _s.DifferentCorrelation;
+            var wide = beat.ExtraWidthMs >= _s.WideExtraMs;
+            var compensatory = !double.IsNaN(rrNextS) && !double.IsNaN(local) && rrPrev + rrNextS >= _s.CompensatoryRatio * 2 * local;
+            var ventricular = !normalShape && !narrower && (premature
+                ? clearlyDifferent || wide || compensatory
+                : clearlyDifferent && (wide || beat.TemplatePrematureShare >= 0.5));
+            if (ventricular)
             {
-                var clearlyDifferent = beat.CorrelationToNormal < _s.DifferentCorrelation;
-                var wide = beat.ExtraWidthMs >= _s.WideExtraMs;
-                var ectopicCluster = beat.TemplatePrematureShare >= 0.5;
-                cls = premature || (clearlyDifferent && (ectopicCluster || wide)) ? BeatClass.V : BeatClass.N;
+                cls = BeatClass.V;
             }
             else
             {
-                cls = Supraventricular(rrPrev, rrBefore, rrNextS, local, premature, beat.PWave) ? BeatClass.S : BeatClass.N;
+                cls = Supraventricular(rrPrev, rrBefore, rrNextS, local, premature, beat) ? BeatClass.S : BeatClass.N;
+                if (!premature && !double.IsNaN(beat.AtrialCorrelation))
+                {
+                    _atrialSimilarity += (beat.AtrialCorrelation - _atrialSimilarity) / 16;
+                }
             }
         }
 
@@ -60,9 +68,9 @@ internal sealed class BeatDecision
         return (cls, flags);
     }
 
-    private bool Supraventricular(double rrPrev, double rrBefore, double rrNext, double local, bool premature, sbyte pWave)
+    private bool Supraventricular(double rrPrev, double rrBefore, double rrNext, double local, bool premature, in BeatClassifier.Pending beat)
     {
-        if (double.IsNaN(local) || double.IsNaN(rrPrev) || Fibrillation(pWave))
+        if (double.IsNaN(local) || double.IsNaN(rrPrev) || Fibrillation(beat.PWave))
         {
             return false;
         }
@@ -75,7 +83,11 @@ internal sealed class BeatDecision
 
         var abrupt = double.IsNaN(rrBefore) || rrPrev < _s.AbruptRatio * rrBefore;
         var pauseOrRun = double.IsNaN(rrNext) || rrNext >= _s.PauseRatio * rrPrev || rrNext < _s.PrematureRatio * local;
-        return premature && abrupt && pauseOrRun;
+
+        // A pre-QRS segment just like the sinus one means a sinus P wave: an early sinus beat (after a block, in
+        // sinus arrhythmia), not an ectopic atrial one, whose P differs or hides in the T wave before.
+        var sinusP = beat.AtrialCorrelation >= _s.SinusAtrialCorrelation;
+        return premature && abrupt && pauseOrRun && !sinusP;
     }
 
     private bool Fibrillation(sbyte pWave)
@@ -85,8 +97,11 @@ internal sealed class BeatDecision
             return false;
         }
 
+        // Irregularly irregular RRs without P waves. With no P-wave judgement from delineation, the pre-QRS segments'
+        // likeness to the sinus template stands in for it: fibrillatory waves are not alike from beat to beat.
         var irregularity = _rhythm.Irregularity();
-        return irregularity > _s.IrregularityThreshold;
+        var noP = pWave == 0 || _atrialSimilarity < _s.FibrillationAtrialCorrelation;
+        return irregularity > _s.IrregularityThreshold || (noP && irregularity > _s.IrregularityWithoutPThreshold);
     }
 
     private void Follow(BeatClass cls, double rrPrev)

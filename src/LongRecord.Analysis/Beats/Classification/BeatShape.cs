@@ -6,8 +6,10 @@ namespace LongRecord.Analysis.Beats.Classification;
 /// </summary>
 internal sealed class BeatShape
 {
-    public BeatShape(int leads, int segment, int margin)
+    public BeatShape(int leads, int segment, int margin, int atrial)
     {
+        AtrialLength = atrial;
+        Atrial = new float[leads * atrial];
         Leads = leads;
         Segment = segment;
         Margin = margin;
@@ -18,6 +20,12 @@ internal sealed class BeatShape
     }
 
     public int Leads { get; }
+
+    /// <summary>Samples per lead of the segment before the QRS where a P wave lies.</summary>
+    public int AtrialLength { get; }
+
+    /// <summary>The pre-QRS segment, zero-mean per lead, lead-major.</summary>
+    public float[] Atrial { get; }
 
     /// <summary>Samples per lead that a template holds.</summary>
     public int Segment { get; }

@@ -13,6 +13,12 @@ public sealed record ClassificationSettings
     /// <summary>End of the compared QRS segment after its centre, ms (covers a wide S wave and the ST junction; common practice, no source).</summary>
     public double SegmentAfterMs { get; init; } = 140;
 
+    /// <summary>Start of the pre-QRS (P wave) segment before the QRS centre, ms (PR interval 120–200 ms, P wave up to about 110 ms; textbook, from memory).</summary>
+    public double AtrialFromMs { get; init; } = 260;
+
+    /// <summary>End of the pre-QRS segment before the QRS centre, ms.</summary>
+    public double AtrialToMs { get; init; } = 60;
+
     /// <summary>Largest shift tried when aligning a beat to a template, ms.</summary>
     public double ShiftMs { get; init; } = 12;
 
@@ -41,13 +47,13 @@ public sealed record ClassificationSettings
     /// A beat is premature when its RR is below this fraction of the local normal RR. Holter practice flags
     /// supraventricular prematurity at 20–30 % (common practice, from memory); 0.85 sits between the 0.8–0.9 values in use.
     /// </summary>
-    public double PrematureRatio { get; init; } = 0.85;
+    public double PrematureRatio { get; init; } = 0.9;
 
     /// <summary>
     /// A full compensatory pause: coupling RR plus the following RR reach twice the local normal RR; this fraction of
     /// it allows for sinus variability (the sinus node is not reset by a ventricular beat; textbook physiology, from memory).
     /// </summary>
-    public double CompensatoryRatio { get; init; } = 0.95;
+    public double CompensatoryRatio { get; init; } = 0.9;
 
     /// <summary>Supraventricular RRs whose median is the local rhythm (about 15 s at 70 /min; runs of fewer than half as many premature beats do not move it).</summary>
     public int LocalRrBeats { get; init; } = 16;
@@ -57,6 +63,15 @@ public sealed record ClassificationSettings
     /// bigeminy and trigeminy count as regular) exceeds this fraction of the mean RR (common practice, no source).
     /// </summary>
     public double IrregularityThreshold { get; init; } = 0.05;
+
+    /// <summary>The lower irregularity that counts as atrial fibrillation when P waves are absent (or unlike the sinus P from beat to beat).</summary>
+    public double IrregularityWithoutPThreshold { get; init; } = 0.03;
+
+    /// <summary>Mean likeness of the pre-QRS segments to the sinus template below which P waves are taken as absent.</summary>
+    public double FibrillationAtrialCorrelation { get; init; } = 0.5;
+
+    /// <summary>A pre-QRS segment correlating this well with the sinus template's carries a sinus P wave.</summary>
+    public double SinusAtrialCorrelation { get; init; } = 0.8;
 
     /// <summary>RRs over which irregularity is judged.</summary>
     public int IrregularityBeats { get; init; } = 24;

@@ -3,8 +3,9 @@ namespace LongRecord.Analysis.Beats.Classification;
 /// <summary>One morphology cluster of a recording: the running mean of its beats' QRS segments and their statistics.</summary>
 internal sealed class MorphologyTemplate
 {
-    public MorphologyTemplate(int leads, int segment)
+    public MorphologyTemplate(int leads, int segment, int atrial)
     {
+        Atrial = new float[leads * atrial];
         Mean = new float[leads * segment];
         LeadEnergy = new double[leads];
     }
@@ -15,6 +16,11 @@ internal sealed class MorphologyTemplate
     public float[] Mean { get; }
 
     public double[] LeadEnergy { get; }
+
+    /// <summary>Running mean of the pre-QRS segment of the on-time beats (the sinus P wave when there is one).</summary>
+    public float[] Atrial { get; }
+
+    public long AtrialCount { get; set; }
 
     public double Energy { get; set; }
 

@@ -14,6 +14,7 @@ internal sealed class ShapeExtractor
     private readonly int _spreadHalf;
     private readonly int _quietHalf;
     private readonly double[] _energy;
+    private readonly int _atrialFrom;
 
     public ShapeExtractor(double samplingRateHz, int leads, ClassificationSettings settings)
     {
@@ -25,6 +26,8 @@ internal sealed class ShapeExtractor
         _centroidHalf = Math.Max(2, Samples(60));
         _spreadHalf = Math.Max(3, Samples(150));
         _quietHalf = Math.Max(2, Samples(100));
+        _atrialFrom = Samples(settings.AtrialFromMs);
+        AtrialLength = Math.Max(2, _atrialFrom - Samples(settings.AtrialToMs));
         _energy = new double[2 * _spreadHalf + 1];
     }
 
@@ -32,7 +35,9 @@ internal sealed class ShapeExtractor
 
     public int Margin { get; }
 
-    public BeatShape NewShape() => new(_leads, Segment, Margin);
+    public int AtrialLength { get; }
+
+    public BeatShape NewShape() => new(_leads, Segment, Margin, AtrialLength);
 
     /// <summary>Fills <paramref name="shape"/> from a lead-major window; false (and shape invalid) when the window is unusable.</summary>
     public bool Extract(ReadOnlySpan<float> window, int length, int fiducialIndex, BeatShape shape)
@@ -54,7 +59,8 @@ internal sealed class ShapeExtractor
         }
 
         var start = centre - _before - Margin;
-        if (start < 0 || start + shape.Span > length || centre - _spreadHalf - 1 < 0 || centre + _spreadHalf + 1 >= length)
+        var atrialStart = centre - _atrialFrom;
+        if (start < 0 || atrialStart < 0 || start + shape.Span > length || centre - _spreadHalf - 1 < 0 || centre + _spreadHalf + 1 >= length)
         {
             return false;
         }
@@ -71,6 +77,28 @@ internal sealed class ShapeExtractor
                 }
 
                 dst[i] = src[i];
+            }
+        }
+
+        for (var k = 0; k < _leads; k++)
+        {
+            var src = window.Slice(k * length + atrialStart, AtrialLength);
+            var dst = shape.Atrial.AsSpan(k * AtrialLength, AtrialLength);
+            double sum = 0;
+            for (var i = 0; i < src.Length; i++)
+            {
+                if (float.IsNaN(src[i]))
+                {
+                    return false;
+                }
+
+                sum += src[i];
+            }
+
+            var mean = (float)(sum / src.Length);
+            for (var i = 0; i < src.Length; i++)
+            {
+                dst[i] = src[i] - mean;
             }
         }
 

@@ -18,7 +18,7 @@ internal sealed class TemplateSet
     private short _nextId;
     private long _beats;
 
-    public TemplateSet(int leads, int segment, ClassificationSettings settings)
+    public TemplateSet(int leads, int segment, int atrial, ClassificationSettings settings)
     {
         _leads = leads;
         _segment = segment;
@@ -26,7 +26,7 @@ internal sealed class TemplateSet
         _templates = new MorphologyTemplate[settings.MaxTemplates];
         for (var i = 0; i < _templates.Length; i++)
         {
-            _templates[i] = new MorphologyTemplate(leads, segment);
+            _templates[i] = new MorphologyTemplate(leads, segment, atrial);
         }
 
         // Weights halve over this many beats: old clusters fade so the set follows a recording that changes.
@@ -157,6 +157,27 @@ internal sealed class TemplateSet
         return energy > 0 && t.Energy > 0 ? dot / Math.Sqrt(energy * t.Energy) : -1;
     }
 
+    /// <summary>Correlation of the beat's pre-QRS segment with the template's (NaN when the template has none yet).</summary>
+    public static double AtrialCorrelation(BeatShape beat, MorphologyTemplate t)
+    {
+        if (t.AtrialCount == 0)
+        {
+            return double.NaN;
+        }
+
+        double dot = 0, ex = 0, ey = 0;
+        var x = beat.Atrial;
+        var y = t.Atrial;
+        for (var i = 0; i < x.Length; i++)
+        {
+            dot += x[i] * y[i];
+            ex += x[i] * x[i];
+            ey += y[i] * y[i];
+        }
+
+        return ex > 0 && ey > 0 ? dot / Math.Sqrt(ex * ey) : double.NaN;
+    }
+
     private static double Dot(ReadOnlySpan<float> x, ReadOnlySpan<float> y)
     {
         var acc = Vector<float>.Zero;
@@ -213,6 +234,8 @@ internal sealed class TemplateSet
         s.NoiseRatio = 0;
         s.ComparedWith = -1;
         Array.Clear(s.Mean);
+        Array.Clear(s.Atrial);
+        s.AtrialCount = 0;
         return s;
     }
 
@@ -234,6 +257,17 @@ internal sealed class TemplateSet
         }
 
         t.RecomputeEnergy(_leads, _segment);
+        if (onTime)
+        {
+            t.AtrialCount++;
+            var b = (float)Math.Max(1.0 / t.AtrialCount, 1.0 / _settings.TemplateAdaptBeats);
+            var x = beat.Atrial;
+            for (var i = 0; i < x.Length; i++)
+            {
+                t.Atrial[i] += b * (x[i] - t.Atrial[i]);
+            }
+        }
+
         t.SpreadMs += alpha * (beat.SpreadMs - t.SpreadMs);
         t.NoiseRatio += alpha * (beat.NoiseRatio - t.NoiseRatio);
         if (!double.IsNaN(widthMs))
