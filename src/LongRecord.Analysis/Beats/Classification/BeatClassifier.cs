@@ -64,6 +64,7 @@ public sealed class BeatClassifier
             var match = _templates.Assign(_shape, onTime, float.IsNaN(measurements.QrsWidthMs) ? double.NaN : measurements.QrsWidthMs);
             beat.Valid = true;
             beat.Template = match.Template.Id;
+            beat.NewShape = match.Created;
             beat.WidthMs = width;
             beat.Noise = _shape.NoiseRatio;
             var t = match.Template;
@@ -129,5 +130,6 @@ public sealed class BeatClassifier
         public double TemplatePrematureShare;
         public double AtrialCorrelation;
         public float NormalNoise;
+        public bool NewShape;
     }
 }

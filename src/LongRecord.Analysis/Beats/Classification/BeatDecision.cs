@@ -9,7 +9,7 @@ namespace LongRecord.Analysis.Beats.Classification;
 /// <item>S: a normal-like shape, premature against the local rhythm and abruptly shorter than the RR before, followed
 /// by a longer RR (the pause) or by more premature beats (a run); runs continue while the RR stays short and
 /// steady. Never during irregularly irregular rhythm (atrial fibrillation): conducted beats there are N.</item>
-/// <item>Q: no usable signal, or a noisy window.</item>
+/// <item>Q: no usable signal, a noisy window, or an on-time beat of a shape that matches no template.</item>
 /// </list>
 /// </summary>
 internal sealed class BeatDecision
@@ -52,7 +52,8 @@ internal sealed class BeatDecision
                 : clearlyDifferent && (wide || beat.TemplatePrematureShare >= 0.5));
             if (ventricular)
             {
-                cls = BeatClass.V;
+                // An on-time beat of a shape not seen before is more often artefact than ectopy.
+                cls = beat.NewShape && !premature ? BeatClass.Q : BeatClass.V;
             }
             else
             {
@@ -70,7 +71,7 @@ internal sealed class BeatDecision
 
     private bool Supraventricular(double rrPrev, double rrBefore, double rrNext, double local, bool premature, in BeatClassifier.Pending beat)
     {
-        if (double.IsNaN(local) || double.IsNaN(rrPrev) || Fibrillation(beat.PWave))
+        if (!premature || Fibrillation(beat.PWave))
         {
             return false;
         }
@@ -78,7 +79,7 @@ internal sealed class BeatDecision
         if (PreviousClass == BeatClass.S)
         {
             // Inside a run: the RR stays short against the rhythm before the run, and steady.
-            return _run < _s.MaxRunBeats && premature && Math.Abs(rrPrev - rrBefore) <= _s.RunSteadiness * rrBefore;
+            return _run < _s.MaxRunBeats && Math.Abs(rrPrev - rrBefore) <= _s.RunSteadiness * rrBefore;
         }
 
         var abrupt = double.IsNaN(rrBefore) || rrPrev < _s.AbruptRatio * rrBefore;
@@ -87,7 +88,7 @@ internal sealed class BeatDecision
         // A pre-QRS segment just like the sinus one means a sinus P wave: an early sinus beat (after a block, in
         // sinus arrhythmia), not an ectopic atrial one, whose P differs or hides in the T wave before.
         var sinusP = beat.AtrialCorrelation >= _s.SinusAtrialCorrelation;
-        return premature && abrupt && pauseOrRun && !sinusP;
+        return abrupt && pauseOrRun && !sinusP;
     }
 
     private bool Fibrillation(sbyte pWave)

@@ -35,8 +35,6 @@ internal sealed class MorphologyTemplate
     /// <summary>Like <see cref="Weight"/>, counting only premature beats.</summary>
     public double PrematureWeight { get; set; }
 
-    public long LastBeat { get; set; }
-
     /// <summary>Running mean of the beats' slope-energy spread, ms.</summary>
     public double SpreadMs { get; set; }
 
@@ -56,13 +54,11 @@ internal sealed class MorphologyTemplate
 
     public double AmplitudeToNormal { get; set; }
 
-    public void Decay(long beat, double perBeat)
+    public void Decay(double factor)
     {
-        var f = Math.Pow(perBeat, beat - LastBeat);
-        Weight *= f;
-        OnTimeWeight *= f;
-        PrematureWeight *= f;
-        LastBeat = beat;
+        Weight *= factor;
+        OnTimeWeight *= factor;
+        PrematureWeight *= factor;
     }
 
     public void RecomputeEnergy(int leads, int segment)

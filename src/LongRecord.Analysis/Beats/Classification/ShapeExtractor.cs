@@ -13,6 +13,7 @@ internal sealed class ShapeExtractor
     private readonly int _centroidHalf;
     private readonly int _spreadHalf;
     private readonly int _quietHalf;
+    private readonly int _noiseReach;
     private readonly double[] _energy;
     private readonly int _atrialFrom;
 
@@ -26,6 +27,7 @@ internal sealed class ShapeExtractor
         _centroidHalf = Math.Max(2, Samples(60));
         _spreadHalf = Math.Max(3, Samples(150));
         _quietHalf = Math.Max(2, Samples(100));
+        _noiseReach = Math.Max(_quietHalf + 2, Samples(400));
         _atrialFrom = Samples(settings.AtrialFromMs);
         AtrialLength = Math.Max(2, _atrialFrom - Samples(settings.AtrialToMs));
         _energy = new double[2 * _spreadHalf + 1];
@@ -191,8 +193,8 @@ internal sealed class ShapeExtractor
         shape.SpreadMs = (float)((hi - lo + 1) * 1000.0 / _fs);
     }
 
-    // Mean absolute second difference away from the QRS, against the QRS's largest slope: muscle noise and
-    // electrode artefact raise it, clean baseline and slow P/T waves barely do.
+    // Mean absolute second difference away from the QRS (100 to 400 ms either side, every other sample), against
+    // the QRS's largest slope: muscle noise and electrode artefact raise it, clean baseline and slow P/T waves barely do.
     private float Noise(ReadOnlySpan<float> window, int length, int centre, float peakSlope)
     {
         double sum = 0;
@@ -200,23 +202,26 @@ internal sealed class ShapeExtractor
         for (var k = 0; k < _leads; k++)
         {
             var lead = window.Slice(k * length, length);
-            for (var t = 1; t < length - 1; t++)
-            {
-                if (t > centre - _quietHalf && t < centre + _quietHalf)
-                {
-                    t = centre + _quietHalf;
-                    continue;
-                }
-
-                var d2 = lead[t + 1] - 2 * lead[t] + lead[t - 1];
-                if (!float.IsNaN(d2))
-                {
-                    sum += Math.Abs(d2);
-                    n++;
-                }
-            }
+            n += SumSecondDifference(lead, Math.Max(1, centre - _noiseReach), centre - _quietHalf, ref sum);
+            n += SumSecondDifference(lead, centre + _quietHalf, Math.Min(length - 1, centre + _noiseReach), ref sum);
         }
 
         return n == 0 || peakSlope <= 0 ? 0 : (float)(sum / n / peakSlope);
+    }
+
+    private static int SumSecondDifference(ReadOnlySpan<float> lead, int from, int to, ref double sum)
+    {
+        var n = 0;
+        for (var t = from; t < to; t += 2)
+        {
+            var d2 = lead[t + 1] - 2 * lead[t] + lead[t - 1];
+            if (!float.IsNaN(d2))
+            {
+                sum += Math.Abs(d2);
+                n++;
+            }
+        }
+
+        return n;
     }
 }

@@ -41,6 +41,14 @@ internal sealed class TemplateSet
     public Match Assign(BeatShape beat, bool onTime, double widthMs)
     {
         _beats++;
+        foreach (var t in _templates)
+        {
+            if (t.InUse)
+            {
+                t.Decay(_decay);
+            }
+        }
+
         MorphologyTemplate? best = null;
         double bestCorr = -2, bestAmp = 0;
         var bestShift = 0;
@@ -51,7 +59,7 @@ internal sealed class TemplateSet
         }
 
         // Fine search over shifts only for the few templates that are close at zero shift.
-        for (var pick = 0; pick < 3; pick++)
+        for (var pick = 0; pick < 2; pick++)
         {
             var at = -1;
             for (var i = 0; i < coarse.Length; i++)
@@ -62,7 +70,8 @@ internal sealed class TemplateSet
                 }
             }
 
-            if (at < 0)
+            // A shift of a few milliseconds cannot lift a poor match to a good one.
+            if (at < 0 || (pick > 0 && coarse[at] < _settings.MatchCorrelation - 0.2))
             {
                 break;
             }
@@ -214,7 +223,6 @@ internal sealed class TemplateSet
             // Full: the lightest template other than the normal one gives way.
             foreach (var t in _templates)
             {
-                t.Decay(_beats, _decay);
                 if (t != Normal && (slot is null || t.Weight < slot.Weight))
                 {
                     slot = t;
@@ -228,7 +236,6 @@ internal sealed class TemplateSet
         _nextId = _nextId == short.MaxValue ? (short)0 : (short)(_nextId + 1);
         s.Count = 0;
         s.Weight = s.OnTimeWeight = s.PrematureWeight = 0;
-        s.LastBeat = _beats;
         s.SpreadMs = 0;
         s.WidthMs = double.NaN;
         s.NoiseRatio = 0;
@@ -275,7 +282,6 @@ internal sealed class TemplateSet
             t.WidthMs = double.IsNaN(t.WidthMs) ? widthMs : t.WidthMs + alpha * (widthMs - t.WidthMs);
         }
 
-        t.Decay(_beats, _decay);
         t.Weight += 1;
         if (onTime)
         {
@@ -308,8 +314,6 @@ internal sealed class TemplateSet
                 var (c, amp) = Compare(a, b, 1);
                 if (c >= _settings.MergeCorrelation && amp >= 1 / 1.25 && amp <= 1.25)
                 {
-                    a.Decay(_beats, _decay);
-                    b.Decay(_beats, _decay);
                     var (keep, drop) = a.Weight >= b.Weight ? (a, b) : (b, a);
                     var wk = keep.Weight / (keep.Weight + drop.Weight);
                     for (var n = 0; n < keep.Mean.Length; n++)
@@ -345,7 +349,6 @@ internal sealed class TemplateSet
         {
             if (t.InUse)
             {
-                t.Decay(_beats, _decay);
                 if (heaviest is null || t.OnTimeWeight > heaviest.OnTimeWeight)
                 {
                     heaviest = t;
