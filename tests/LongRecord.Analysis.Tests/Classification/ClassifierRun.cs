@@ -12,7 +12,7 @@ namespace LongRecord.Analysis.Tests.Classification;
 /// </summary>
 internal static class ClassifierRun
 {
-    public sealed record Result(string Record, double Fs, List<(long Sample, BeatClass Class)> Beats, long[,] Confusion, TimeSpan ClassifierTime);
+    public sealed record Result(string Record, double Fs, int Detections, List<(long Sample, BeatClass Class)> Beats, long[,] Confusion, TimeSpan ClassifierTime);
 
     public static Result Run(ReferenceRecord record, ClassificationSettings? settings = null)
     {
@@ -72,6 +72,6 @@ internal static class ClassifierRun
             beats.Add((b.Sample, b.Class));
         }
 
-        return new Result(record.Name, fs, beats, Ec57Scoring.Compare(record.Annotations, beats, fs), watch.Elapsed);
+        return new Result(record.Name, fs, detector.Detections.Count, beats, Ec57Scoring.Compare(record.Annotations, beats, fs), watch.Elapsed);
     }
 }

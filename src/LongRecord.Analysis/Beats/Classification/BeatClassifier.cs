@@ -87,7 +87,7 @@ public sealed class BeatClassifier
 
         if (!double.IsNaN(rrS))
         {
-            _rhythm.AddRr(rrS, _decision.PreviousClass == BeatClass.V);
+            _rhythm.AddRr(rrS, _decision.PreviousClass is BeatClass.V or BeatClass.S);
         }
 
         _pending = beat;

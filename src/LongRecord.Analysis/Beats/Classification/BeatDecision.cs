@@ -101,13 +101,18 @@ internal sealed class BeatDecision
         // Irregularly irregular RRs without P waves. With no P-wave judgement from delineation, the pre-QRS segments'
         // likeness to the sinus template stands in for it: fibrillatory waves are not alike from beat to beat.
         var irregularity = _rhythm.Irregularity();
+        // Sinus-like P waves on the on-time beats rule fibrillation out, however irregular the RRs (frequent
+        // premature atrial beats make them so).
         var noP = pWave == 0 || _atrialSimilarity < _s.FibrillationAtrialCorrelation;
-        return irregularity > _s.IrregularityThreshold || (noP && irregularity > _s.IrregularityWithoutPThreshold);
+        var sinusP = pWave != 0 && _atrialSimilarity >= _s.SinusAtrialCorrelation;
+        return (noP && irregularity > _s.IrregularityWithoutPThreshold) || (!sinusP && irregularity > _s.IrregularityThreshold);
     }
 
     private void Follow(BeatClass cls, double rrPrev)
     {
-        if (cls == BeatClass.V)
+        // Irregularity is judged on the RRs between beats of the underlying rhythm: in sinus rhythm with frequent
+        // ectopic beats those stay regular; in fibrillation the on-time RRs alone are irregular enough.
+        if (cls is BeatClass.V or BeatClass.S)
         {
             _rhythm.MarkLatestEctopic();
         }

@@ -68,7 +68,7 @@ public sealed record ClassificationSettings
     public double IrregularityWithoutPThreshold { get; init; } = 0.03;
 
     /// <summary>Mean likeness of the pre-QRS segments to the sinus template below which P waves are taken as absent.</summary>
-    public double FibrillationAtrialCorrelation { get; init; } = 0.5;
+    public double FibrillationAtrialCorrelation { get; init; } = 0.6;
 
     /// <summary>A pre-QRS segment correlating this well with the sinus template's carries a sinus P wave.</summary>
     public double SinusAtrialCorrelation { get; init; } = 0.8;

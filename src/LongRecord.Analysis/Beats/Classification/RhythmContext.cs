@@ -25,14 +25,14 @@ internal sealed class RhythmContext
         _irregular = new double[settings.IrregularityBeats];
     }
 
-    /// <summary>Every RR in seconds, in order; <paramref name="ectopic"/> when it starts at a ventricular beat.</summary>
+    /// <summary>Every RR in seconds, in order; <paramref name="ectopic"/> when it starts at an ectopic beat.</summary>
     public void AddRr(double rrS, bool ectopic)
     {
         _ectopic[_allCount % _all.Length] = ectopic;
         _all[_allCount++ % _all.Length] = rrS;
     }
 
-    /// <summary>The latest RR ends at a ventricular beat: leave it out of the irregularity measure.</summary>
+    /// <summary>The latest RR ends at an ectopic beat: leave it out of the irregularity measure.</summary>
     public void MarkLatestEctopic()
     {
         if (_allCount > 0)
@@ -95,7 +95,7 @@ internal sealed class RhythmContext
     }
 
     /// <summary>
-    /// Median, over the recent RRs that neither start nor end at a ventricular beat, of the least change against any
+    /// Median, over the recent RRs that neither start nor end at an ectopic beat, of the least change against any
     /// of the three such RRs before, relative to their mean; NaN until enough RRs were seen.
     /// </summary>
     public double Irregularity()
