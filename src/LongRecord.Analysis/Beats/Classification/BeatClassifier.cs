@@ -36,8 +36,6 @@ public sealed class BeatClassifier
         _decision = new BeatDecision(_settings, _rhythm);
     }
 
-    internal Action<Pending, double, double, double, BeatClass>? Trace { get; set; }
-
     /// <summary>Beats decided and not yet taken.</summary>
     public int Ready => _decided.Count;
 
@@ -75,7 +73,6 @@ public sealed class BeatClassifier
                 ? (match.Correlation, match.Amplitude, 0)
                 : _templates.BestShift(_shape, normal);
             beat.AtrialCorrelation = TemplateSet.AtrialCorrelation(_shape, normal);
-            beat.NormalNoise = (float)normal.NoiseRatio;
             var normalWidth = float.IsNaN(measurements.QrsWidthMs) || double.IsNaN(normal.WidthMs) ? normal.SpreadMs : normal.WidthMs;
             beat.ExtraWidthMs = width - normalWidth;
         }
@@ -110,7 +107,6 @@ public sealed class BeatClassifier
     private void Decide(Pending beat, double rrNextS)
     {
         var (cls, flags) = _decision.Decide(beat, rrNextS);
-        Trace?.Invoke(beat, rrNextS, _rhythm.LocalNormalRr, _rhythm.Irregularity(), cls);
         _decided.Enqueue(new ClassifiedBeat(beat.Sample, cls, beat.Valid ? beat.Template : (short)-1, flags, beat.Valid ? beat.WidthMs : float.NaN));
     }
 
@@ -129,7 +125,6 @@ public sealed class BeatClassifier
         public float Noise;
         public double TemplatePrematureShare;
         public double AtrialCorrelation;
-        public float NormalNoise;
         public bool NewShape;
     }
 }

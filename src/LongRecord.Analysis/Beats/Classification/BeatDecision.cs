@@ -100,11 +100,11 @@ internal sealed class BeatDecision
 
         // Irregularly irregular RRs without P waves. With no P-wave judgement from delineation, the pre-QRS segments'
         // likeness to the sinus template stands in for it: fibrillatory waves are not alike from beat to beat.
-        var irregularity = _rhythm.Irregularity();
         // Sinus-like P waves on the on-time beats rule fibrillation out, however irregular the RRs (frequent
         // premature atrial beats make them so).
         var noP = pWave == 0 || _atrialSimilarity < _s.FibrillationAtrialCorrelation;
         var sinusP = pWave != 0 && _atrialSimilarity >= _s.SinusAtrialCorrelation;
+        var irregularity = _rhythm.Irregularity(orAll: noP);
         return (noP && irregularity > _s.IrregularityWithoutPThreshold) || (!sinusP && irregularity > _s.IrregularityThreshold);
     }
 

@@ -12,6 +12,7 @@ internal sealed class RhythmContext
     private readonly double[] _scratch;
     private readonly double[] _regular;
     private readonly double[] _irregular;
+    private const int MinimumRegular = 8;
     private int _allCount;
     private int _normalCount;
 
@@ -52,6 +53,9 @@ internal sealed class RhythmContext
     {
         _normalCount = 0;
     }
+
+    /// <summary>RRs seen so far.</summary>
+    public int RrCount => _allCount;
 
     /// <summary>The <paramref name="back"/>-th last RR (0 = the latest), or NaN.</summary>
     public double Rr(int back) => back < _allCount && back < _all.Length ? _all[(_allCount - 1 - back) % _all.Length] : double.NaN;
@@ -96,9 +100,10 @@ internal sealed class RhythmContext
 
     /// <summary>
     /// Median, over the recent RRs that neither start nor end at an ectopic beat, of the least change against any
-    /// of the three such RRs before, relative to their mean; NaN until enough RRs were seen.
+    /// of the three such RRs before, relative to their mean. With only a handful of such RRs, all RRs when
+    /// <paramref name="orAll"/>, else NaN; NaN until enough RRs were seen.
     /// </summary>
-    public double Irregularity()
+    public double Irregularity(bool orAll)
     {
         var need = _regular.Length;
         var got = 0;
@@ -114,10 +119,24 @@ internal sealed class RhythmContext
 
         if (got < need)
         {
-            return double.NaN;
+            // Mostly ectopic beats lately: judge the RRs of the underlying rhythm there are, down to a handful. With
+            // fewer, and where that may be fibrillation taken for ectopy, judge all RRs; otherwise give no judgement.
+            if (got < MinimumRegular + 3 && (!orAll || Math.Min(_allCount, _all.Length) < need))
+            {
+                return double.NaN;
+            }
+
+            if (got < MinimumRegular + 3)
+            {
+                got = need;
+                for (var back = 0; back < need; back++)
+                {
+                    _regular[back] = Rr(back);
+                }
+            }
         }
 
-        var n = _irregular.Length;
+        var n = got - 3;
         double mean = 0;
         for (var i = 0; i < n; i++)
         {
@@ -127,7 +146,7 @@ internal sealed class RhythmContext
         }
 
         mean /= n;
-        return Median(_irregular) / mean;
+        return Median(_irregular.AsSpan(0, n)) / mean;
     }
 
     private static double Median(Span<double> values)
