@@ -12,7 +12,6 @@ internal sealed class RhythmContext
     private readonly double[] _scratch;
     private readonly double[] _regular;
     private readonly double[] _irregular;
-    private const int MinimumRegular = 8;
     private int _allCount;
     private int _normalCount;
 
@@ -100,7 +99,7 @@ internal sealed class RhythmContext
 
     /// <summary>
     /// Median, over the recent RRs that neither start nor end at an ectopic beat, of the least change against any
-    /// of the three such RRs before, relative to their mean. With only a handful of such RRs, all RRs when
+    /// of the three such RRs before, relative to their mean. With too few such RRs, all RRs when
     /// <paramref name="orAll"/>, else NaN; NaN until enough RRs were seen.
     /// </summary>
     public double Irregularity(bool orAll)
@@ -119,20 +118,17 @@ internal sealed class RhythmContext
 
         if (got < need)
         {
-            // Mostly ectopic beats lately: judge the RRs of the underlying rhythm there are, down to a handful. With
-            // fewer, and where that may be fibrillation taken for ectopy, judge all RRs; otherwise give no judgement.
-            if (got < MinimumRegular + 3 && (!orAll || Math.Min(_allCount, _all.Length) < need))
+            // Mostly ectopic beats lately. Where that may be fibrillation taken for ectopy, judge all RRs; otherwise
+            // give no judgement.
+            if (!orAll || limit < need)
             {
                 return double.NaN;
             }
 
-            if (got < MinimumRegular + 3)
+            got = need;
+            for (var back = 0; back < need; back++)
             {
-                got = need;
-                for (var back = 0; back < need; back++)
-                {
-                    _regular[back] = Rr(back);
-                }
+                _regular[back] = Rr(back);
             }
         }
 

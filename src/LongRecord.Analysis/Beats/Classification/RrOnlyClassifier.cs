@@ -25,6 +25,7 @@ public sealed class RrOnlyClassifier
     private double _pendingRr = double.NaN;
     private BeatClass _previousClass = BeatClass.N;
     private int _run;
+    private bool _fibrillation;
 
     public RrOnlyClassifier(double samplingRateHz, ClassificationSettings? settings = null)
     {
@@ -90,8 +91,15 @@ public sealed class RrOnlyClassifier
         else
         {
             premature = rrPrev < _s.PrematureRatio * local;
+            // Fibrillation with hysteresis: entered above the irregularity threshold, left only once the rhythm is
+            // clearly regular again, so that a stretch of fibrillation that happens to look calmer stays one.
             var irregularity = _rhythm.Irregularity(orAll: true);
-            if (!premature || irregularity > _s.IrregularityThreshold)
+            if (!double.IsNaN(irregularity))
+            {
+                _fibrillation = _fibrillation ? irregularity > _s.IrregularityWithoutPThreshold : irregularity > _s.IrregularityThreshold;
+            }
+
+            if (!premature || _fibrillation)
             {
                 cls = BeatClass.N;
             }
