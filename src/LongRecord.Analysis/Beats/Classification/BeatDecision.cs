@@ -4,11 +4,13 @@ namespace LongRecord.Analysis.Beats.Classification;
 /// The rules that turn a beat's shape (against the recording's normal template) and its timing (against the local
 /// rhythm) into an EC57 class.
 /// <list type="bullet">
-/// <item>V: a shape unlike the normal one and not narrower than it, premature; or, on time, clearly unlike it and
-/// either from a cluster whose beats are mostly premature or clearly wide.</item>
-/// <item>S: a normal-like shape, premature against the local rhythm and abruptly shorter than the RR before, followed
-/// by a longer RR (the pause) or by more premature beats (a run); runs continue while the RR stays short and
-/// steady. Never during irregularly irregular rhythm (atrial fibrillation): conducted beats there are N.</item>
+/// <item>V: a shape unlike the normal one (correlation below 0.9, or wider) and not narrower than it, which is
+/// premature and either clearly unlike (below 0.7), wide, or followed by a full compensatory pause; or, on time,
+/// clearly unlike and either wide or from a cluster whose beats are mostly premature.</item>
+/// <item>S: a normal-like shape, premature against the local rhythm and abruptly shorter than the RR before, with a
+/// pre-QRS segment unlike the sinus one (ectopic P, or P hidden in the T wave), followed by a longer RR (the pause)
+/// or by more premature beats (a run); runs continue while the RR stays short and steady. Never during irregularly
+/// irregular rhythm without sinus P waves (atrial fibrillation): conducted beats there are N.</item>
 /// <item>Q: no usable signal, a noisy window, or an on-time beat of a shape that matches no template.</item>
 /// </list>
 /// </summary>

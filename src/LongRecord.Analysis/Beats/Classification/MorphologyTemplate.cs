@@ -45,15 +45,6 @@ internal sealed class MorphologyTemplate
 
     public bool InUse { get; set; }
 
-    // Comparison with the normal template, refreshed when either changes much.
-    public short ComparedWith { get; set; } = -1;
-
-    public long ComparedAtCount { get; set; }
-
-    public double CorrelationToNormal { get; set; }
-
-    public double AmplitudeToNormal { get; set; }
-
     public void Decay(double factor)
     {
         Weight *= factor;

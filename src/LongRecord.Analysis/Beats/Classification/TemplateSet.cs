@@ -239,7 +239,6 @@ internal sealed class TemplateSet
         s.SpreadMs = 0;
         s.WidthMs = double.NaN;
         s.NoiseRatio = 0;
-        s.ComparedWith = -1;
         Array.Clear(s.Mean);
         Array.Clear(s.Atrial);
         s.AtrialCount = 0;
@@ -326,7 +325,6 @@ internal sealed class TemplateSet
                     keep.Weight += drop.Weight;
                     keep.OnTimeWeight += drop.OnTimeWeight;
                     keep.PrematureWeight += drop.PrematureWeight;
-                    keep.ComparedWith = -1;
                     drop.InUse = false;
                     if (Normal == drop)
                     {
