@@ -1,3 +1,4 @@
+using LongRecord.Analysis.Beats.Classification;
 using LongRecord.Analysis.Conditioning;
 
 namespace LongRecord.Analysis.Beats;
@@ -20,8 +21,11 @@ public sealed class BeatAnalyser
     private readonly List<long> _detections = new();
     private readonly Queue<long> _waiting = new();
     private readonly List<Beat> _beats = new();
-    private float[] _work = [];
-    private float[] _window = [];
+    private readonly BeatClassifier _classifier;
+    private readonly Queue<Beat> _undecided = new();
+    private readonly int _step;
+    private readonly float[] _work;
+    private readonly float[] _window;
 
     public BeatAnalyser(double samplingRateHz, int leads)
     {
@@ -34,10 +38,13 @@ public sealed class BeatAnalyser
         }
 
         _detector = new QrsDetector(samplingRateHz, leads);
+        _classifier = new BeatClassifier(samplingRateHz, leads);
         _pre = (int)Math.Round(BeatWindow.PreS * samplingRateHz);
         _post = (int)Math.Round(BeatWindow.PostS * samplingRateHz);
         _ring = new SignalRing(leads, (int)Math.Ceiling(BeatWindow.RingS * samplingRateHz));
         _window = new float[leads * (_pre + _post + 1)];
+        _step = Math.Max(1, (int)Math.Round(samplingRateHz));
+        _work = new float[leads * _step];
     }
 
     /// <summary>Beats decided so far, in time order.</summary>
@@ -48,16 +55,24 @@ public sealed class BeatAnalyser
     /// <summary>Feeds <paramref name="count"/> samples of every lead, lead-major (lead k at k × count), in mV.</summary>
     public void Process(ReadOnlySpan<float> raw, int count)
     {
-        if (_work.Length < _leads * count)
+        // In steps of at most one second, so that every beat's window is taken before the ring overwrites it,
+        // whatever the caller's block size.
+        for (var done = 0; done < count;)
         {
-            _work = new float[_leads * count];
+            var step = Math.Min(_step, count - done);
+            ProcessStep(raw, count, done, step);
+            done += step;
         }
+    }
 
+    private void ProcessStep(ReadOnlySpan<float> raw, int stride, int offset, int count)
+    {
         var conditioned = _work.AsSpan(0, _leads * count);
-        raw[..conditioned.Length].CopyTo(conditioned);
         for (var k = 0; k < _leads; k++)
         {
-            _conditioners[k].Process(conditioned.Slice(k * count, count));
+            var lead = conditioned.Slice(k * count, count);
+            raw.Slice(k * stride + offset, count).CopyTo(lead);
+            _conditioners[k].Process(lead);
         }
 
         _ring.Append(conditioned, count);
@@ -84,6 +99,8 @@ public sealed class BeatAnalyser
 
         _detections.Clear();
         DrainReady(final: true);
+        _classifier.Flush();
+        TakeClassified();
     }
 
     private void DrainReady(bool final)
@@ -92,6 +109,8 @@ public sealed class BeatAnalyser
         {
             var fiducial = _waiting.Dequeue();
             var (first, length) = _ring.CopyWindow(fiducial - _pre, _pre + _post + 1, _window);
+            var window = _window.AsSpan(0, _leads * length);
+            var at = (int)(fiducial - first);
             var beat = new Beat
             {
                 Sample = fiducial,
@@ -105,8 +124,26 @@ public sealed class BeatAnalyser
                 PWave = -1,
                 LeadQuality = LeadQuality.Good,
             };
-            _ = first;
-            _ = length;
+            _classifier.Add(fiducial, window, length, at, new BeatMeasurements(beat.QrsMs, beat.PWave));
+            _undecided.Enqueue(beat);
+            TakeClassified();
+        }
+    }
+
+    // The classifier decides a beat once the next one is known; pair its answers with the beats waiting for them.
+    private void TakeClassified()
+    {
+        while (_classifier.TryTake(out var c))
+        {
+            var beat = _undecided.Dequeue();
+            if (beat.Sample != c.Sample)
+            {
+                throw new InvalidOperationException($"classifier answered for sample {c.Sample}, expected {beat.Sample}");
+            }
+
+            beat.Class = c.Class;
+            beat.Template = c.Template;
+            beat.Flags |= c.Flags;
             _beats.Add(beat);
         }
     }

@@ -17,8 +17,11 @@ public sealed class BlockSizeInvarianceTests
             Assert.Equal(reference.Beats.Count, other.Beats.Count);
             for (var i = 0; i < reference.Beats.Count; i++)
             {
-                Assert.True(reference.Beats[i].Equals(other.Beats[i]), $"block {block}: beat {i} differs ({reference.Beats[i].Sample} vs {other.Beats[i].Sample})");
+                Assert.True(reference.Beats[i].Equals(other.Beats[i]), $"block {block}: beat {i} differs ({Describe(reference.Beats[i])} vs {Describe(other.Beats[i])})");
             }
         }
     }
+
+    private static string Describe(LongRecord.Analysis.Beats.Beat b) =>
+        $"{b.Sample} {b.Class} t{b.Template} {b.Flags} on{b.QrsOnOffset} off{b.QrsOffOffset} {b.QrsMs} p{b.PWave} {b.LeadQuality}";
 }
