@@ -27,8 +27,19 @@ public sealed class BeatAnalyser
     private readonly float[] _work;
     private readonly float[] _window;
 
-    public BeatAnalyser(double samplingRateHz, int leads)
+    private readonly IReadOnlyList<long>? _given;
+    private readonly IReadOnlyList<BeatClass>? _givenClasses;
+    private int _nextGiven;
+
+    /// <param name="givenBeats">
+    /// Beat positions from an annotation file to use instead of detection (re-analysis), in increasing order; null
+    /// detects. Delineation and classification still run on the signal.
+    /// </param>
+    /// <param name="givenClasses">The annotation file's reviewed classes for <paramref name="givenBeats"/>, kept as they are; null classifies.</param>
+    public BeatAnalyser(double samplingRateHz, int leads, IReadOnlyList<long>? givenBeats = null, IReadOnlyList<BeatClass>? givenClasses = null)
     {
+        _given = givenBeats;
+        _givenClasses = givenClasses;
         _fs = samplingRateHz;
         _leads = leads;
         _conditioners = new EcgConditioner[leads];
@@ -76,20 +87,37 @@ public sealed class BeatAnalyser
         }
 
         _ring.Append(conditioned, count);
-        _detector.Process(conditioned, count);
-        _detector.TakeDetections(_detections);
-        foreach (var d in _detections)
+        if (_given is null)
         {
-            _waiting.Enqueue(d);
+            _detector.Process(conditioned, count);
+            _detector.TakeDetections(_detections);
+            foreach (var d in _detections)
+            {
+                _waiting.Enqueue(d);
+            }
+
+            _detections.Clear();
+        }
+        else
+        {
+            while (_nextGiven < _given.Count && _given[_nextGiven] < _ring.End)
+            {
+                _waiting.Enqueue(_given[_nextGiven++]);
+            }
         }
 
-        _detections.Clear();
         DrainReady(final: false);
     }
 
     /// <summary>Ends the stream: every remaining beat is decided.</summary>
     public void Complete()
     {
+        if (_given is not null)
+        {
+            // Given beats past the end of the signal are dropped: there is nothing to delineate them on.
+            _nextGiven = _given.Count;
+        }
+
         _detector.Flush();
         _detector.TakeDetections(_detections);
         foreach (var d in _detections)
@@ -141,9 +169,14 @@ public sealed class BeatAnalyser
                 throw new InvalidOperationException($"classifier answered for sample {c.Sample}, expected {beat.Sample}");
             }
 
-            beat.Class = c.Class;
+            beat.Class = _givenClasses is null ? c.Class : _givenClasses[_beats.Count];
             beat.Template = c.Template;
-            beat.Flags |= c.Flags;
+            beat.Flags |= _givenClasses is null ? c.Flags : BeatFlags.FromAnnotation;
+            if (_given is not null)
+            {
+                beat.Flags |= BeatFlags.FromAnnotation;
+            }
+
             _beats.Add(beat);
         }
     }

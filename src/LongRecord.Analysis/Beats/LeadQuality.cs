@@ -11,4 +11,7 @@ public enum LeadQuality : byte
 
     /// <summary>Seen on one usable lead only (the others unusable or silent at that moment).</summary>
     SingleLead,
+
+    /// <summary>Not judged: the beat came from an annotation file with no signal to look at.</summary>
+    Unknown,
 }

@@ -16,14 +16,15 @@ public static class SummariseCommand
     {
         var inputs = new Argument<string[]>("INPUT") { Description = "Recordings, or folders to search for them (WFDB records by their headers; EDF, BDF, ISHNE, CSV by content)", Arity = ArgumentArity.OneOrMore }.RejectUnknownOptions();
         var output = new Option<DirectoryInfo>("--out", "-o") { Description = "Output folder: one sub-folder per recording", Required = true };
+        var beats = new Option<string?>("--beats") { Description = "Take beats from an annotation file instead of detecting them: an annotator beside each record's header (qrs, atr, ecg) or a file (WFDB annotations, or a CSV of R times with a time_s or sample column)" };
         var block = new Option<int?>("--block-seconds") { Description = "Seconds of signal read and analysed at a time (results do not depend on it; default about 4 min at 250 Hz)", Hidden = true };
-        var cmd = new Command("summarise", "Analyse recordings: beats (beats.csv, a WFDB annotation file) per recording") { inputs, output, block };
+        var cmd = new Command("summarise", "Analyse recordings: beats (beats.csv, a WFDB annotation file) per recording") { inputs, output, beats, block };
         cmd.SetAction(parse => CommandRunner.Run(stderr, () =>
-            Run(parse.GetValue(inputs)!, parse.GetValue(output)!.ToString(), parse.GetValue(block), stdout, stderr)));
+            Run(parse.GetValue(inputs)!, parse.GetValue(output)!.ToString(), parse.GetValue(beats), parse.GetValue(block), stdout, stderr)));
         return cmd;
     }
 
-    public static ExitCode Run(IReadOnlyList<string> inputs, string outputRoot, int? blockSeconds, TextWriter stdout, TextWriter stderr)
+    public static ExitCode Run(IReadOnlyList<string> inputs, string outputRoot, string? beats, int? blockSeconds, TextWriter stdout, TextWriter stderr)
     {
         var found = RecordingDiscovery.Find(inputs);
         if (found.Count == 0)
@@ -36,7 +37,7 @@ public static class SummariseCommand
         {
             try
             {
-                var options = new SummaryOptions();
+                var options = new SummaryOptions { Beats = beats };
                 if (blockSeconds is int s)
                 {
                     options = options with { BlockSamples = Math.Max(1, s * 250) };
@@ -44,7 +45,7 @@ public static class SummariseCommand
 
                 var summary = RecordingSummariser.Summarise(input, outputRoot, options);
                 stdout.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                    $"{input.RelativePath}: {summary.Beats} beats over {summary.DurationS / 3600:0.##} h, {summary.Leads} lead(s) at {summary.ReferenceRateHz:0.###} Hz → {summary.OutputFolder}"));
+                    $"{input.RelativePath}: {summary.Beats} beats over {summary.DurationS / 3600:0.##} h, {(summary.SignalAnalysed ? $"{summary.Leads} lead(s) at {summary.ReferenceRateHz:0.###} Hz" : "from annotations only, no signal")}{(summary.BeatSource == "detected" ? "" : $" (beats from {Path.GetFileName(summary.BeatSource)})")} → {summary.OutputFolder}"));
             }
             catch (RecordingFormatException e)
             {

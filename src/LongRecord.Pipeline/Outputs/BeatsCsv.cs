@@ -67,6 +67,7 @@ public static class BeatsCsv
     {
         LeadQuality.Good => "good",
         LeadQuality.Noisy => "noisy",
-        _ => "single-lead",
+        LeadQuality.SingleLead => "single-lead",
+        _ => "",
     };
 }
