@@ -5,9 +5,10 @@ namespace LongRecord.Analysis.Quality;
 /// block whose QRS-band slope peak reaches 0.4 of the lead's slope reference and is the largest within ±200 ms marks
 /// one, at the sample of that peak. Each complex's surroundings (200 ms before to 400 ms after, QRS itself −60…+80 ms
 /// left out, both with their means removed) are compared with those of the previous three complexes; the smallest
-/// mean absolute difference is the beat's residual. Noise appears twice in the difference; P and T waves, which repeat,
-/// cancel; an isolated ectopic beat still finds a normal neighbour for the beat after it. Values are common practice,
-/// no source.
+/// mean absolute difference is the beat's residual; the comparison with the next complex also counts for the previous
+/// one, so the first beat of a new morphology (the onset of a run) finds its like. Noise appears twice in the
+/// difference; P and T waves, which repeat, cancel; an isolated ectopic beat still finds a normal neighbour for the
+/// beat after it. Values are common practice, no source.
 /// </summary>
 internal sealed class BeatResidualTracker
 {
@@ -66,6 +67,18 @@ internal sealed class BeatResidualTracker
         }
     }
 
+    /// <summary>Complexes located at samples [from, to) among those already measured.</summary>
+    public int CountComplexes(long fromSample, long toSample)
+    {
+        var n = 0;
+        for (var i = 0; i < _resultCount; i++)
+        {
+            n += _resultR[i] >= fromSample && _resultR[i] < toSample ? 1 : 0;
+        }
+
+        return n;
+    }
+
     /// <summary>Median residual (mV) of the beats at samples [from, to), or NaN when there are none.</summary>
     public float MedianResidual(long fromSample, long toSample)
     {
@@ -74,7 +87,7 @@ internal sealed class BeatResidualTracker
         for (var i = 0; i < _resultCount; i++)
         {
             var r = _resultR[i];
-            if (r >= fromSample && r < toSample)
+            if (r >= fromSample && r < toSample && !float.IsNaN(_result[i]))
             {
                 values[n++] = _result[i];
             }
@@ -127,14 +140,22 @@ internal sealed class BeatResidualTracker
         }
 
         var best = float.NaN;
+        var newest = (_segmentNext + Compared - 1) % Compared;
         for (var i = 0; i < _segmentCount; i++)
         {
             var rr = r - _segmentR[i];
             var end = (int)Math.Min(_after, ShortRrFraction * rr);
             var d = Difference(_current, _segments[i], end);
-            if (!float.IsNaN(d) && !(d >= best))
+            if (float.IsNaN(d))
             {
-                best = d;
+                continue;
+            }
+
+            best = d >= best ? best : d;
+            if (i == newest && _resultCount > 0 && _resultR[LastResult] == _segmentR[i])
+            {
+                var previous = _result[LastResult];
+                _result[LastResult] = d >= previous ? previous : d;
             }
         }
 
@@ -142,14 +163,14 @@ internal sealed class BeatResidualTracker
         _segmentR[_segmentNext] = r;
         _segmentNext = (_segmentNext + 1) % Compared;
         _segmentCount = Math.Min(_segmentCount + 1, Compared);
-        if (!float.IsNaN(best))
-        {
-            _result[_resultNext] = best;
-            _resultR[_resultNext] = r;
-            _resultNext = (_resultNext + 1) % ResultCapacity;
-            _resultCount = Math.Min(_resultCount + 1, ResultCapacity);
-        }
+        // Stored even when NaN (the first beat): the next beat may still give it a value.
+        _result[_resultNext] = best;
+        _resultR[_resultNext] = r;
+        _resultNext = (_resultNext + 1) % ResultCapacity;
+        _resultCount = Math.Min(_resultCount + 1, ResultCapacity);
     }
+
+    private int LastResult => (_resultNext + ResultCapacity - 1) % ResultCapacity;
 
     // Mean absolute difference of the two segments outside the QRS, each with its own mean removed; index 0 of a
     // segment is 'before' samples ahead of its R.

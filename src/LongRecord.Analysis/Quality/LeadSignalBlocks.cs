@@ -11,6 +11,7 @@ internal sealed class LeadSignalBlocks
 
     private readonly int _lag;
     private readonly int _stuckRun;
+    private readonly int _plateauRun;
     private readonly float _railLow;
     private readonly float _railHigh;
     private readonly float _tolerance;
@@ -28,6 +29,7 @@ internal sealed class LeadSignalBlocks
         // without the T wave (common practice, no source).
         _lag = Math.Max(1, (int)Math.Round(0.016 * samplingRateHz));
         _stuckRun = Math.Max(3, (int)Math.Round(settings.StuckMinS * samplingRateHz));
+        _plateauRun = Math.Max(3, (int)Math.Round(settings.ClipPlateauMinS * samplingRateHz));
         _tolerance = (float)settings.RailToleranceMv;
         // Unknown rails become unreachable values. A sample beyond a rail by more than the tolerance proves the rail
         // was not the recorder's limit (NSTDB's headers declare 11-bit rails that its noise-added samples exceed).
@@ -45,85 +47,98 @@ internal sealed class LeadSignalBlocks
     /// <summary>Folds samples that all belong to the current block.</summary>
     public void Add(ReadOnlySpan<float> raw, ReadOnlySpan<float> cond)
     {
+        if (cond.Length < raw.Length)
+        {
+            throw new ArgumentException("the conditioned span is shorter than the raw one", nameof(cond));
+        }
+
+        // The hot loop of the monitor: everything lives in locals, and the usual paths are free of unpredictable
+        // branches (runs of equal samples are common at 360 Hz and 5 µV steps).
         var ring = _ring;
         var len = ring.Length;
         var pos = _ringPos;
         var lag = _lag;
         var stuckRun = _stuckRun;
+        var plateauRun = _plateauRun;
         var railLow = _railLow;
         var railHigh = _railHigh;
         var tolerance = _tolerance;
         var previous = _previous;
         var run = _run;
-        var b = _current;
+        ref var b = ref _current;
+        int valid = b.Valid, missing = b.Missing, railed = b.Railed, condCount = b.CondCount;
+        float rawMin = b.RawMin, rawMax = b.RawMax, condMin = b.CondMin, condMax = b.CondMax, peak = b.SlopePeak;
+        var condSum = b.CondSum;
+        var peakAt = -1;
         for (var i = 0; i < raw.Length; i++)
         {
             var x = raw[i];
             var y = cond[i];
             var back = pos - lag;
-            if (back < 0)
-            {
-                back += len;
-            }
-
+            back += (back >> 31) & len;
             var before = ring[back];
+            // x − x is NaN for a missing sample and 0 otherwise: missing samples enter the ring as NaN.
+            ring[pos] = y + (x - x);
+            pos = pos + 1 == len ? 0 : pos + 1;
             if (float.IsNaN(x))
             {
-                ring[pos] = float.NaN;
-                pos = pos + 1 == len ? 0 : pos + 1;
-                b.Missing++;
+                missing++;
                 previous = float.NaN;
                 run = 0;
                 continue;
             }
 
-            ring[pos] = y;
-            pos = pos + 1 == len ? 0 : pos + 1;
-            b.Valid++;
-            if (x == previous)
+            valid++;
+            var same = x == previous;
+            run = same ? run + 1 : 1;
+            previous = x;
+            var atRail = Math.Abs(x - railHigh) <= tolerance | Math.Abs(x - railLow) <= tolerance;
+            railed += same & atRail ? 1 : 0;
+            if (run >= plateauRun)
             {
-                run++;
-                if (Math.Abs(x - railHigh) <= tolerance || Math.Abs(x - railLow) <= tolerance)
-                {
-                    b.Railed++;
-                }
-
-                if (run >= stuckRun)
-                {
-                    b.Stuck++;
-                    b.StuckMin = Math.Min(b.StuckMin, x);
-                    b.StuckMax = Math.Max(b.StuckMax, x);
-                }
-            }
-            else
-            {
-                previous = x;
-                run = 1;
+                b.Plateau++;
+                b.PlateauMin = Math.Min(b.PlateauMin, x);
+                b.PlateauMax = Math.Max(b.PlateauMax, x);
+                b.Stuck += run >= stuckRun ? 1 : 0;
             }
 
-            b.RawMin = Math.Min(b.RawMin, x);
-            b.RawMax = Math.Max(b.RawMax, x);
+            rawMin = x < rawMin ? x : rawMin;
+            rawMax = x > rawMax ? x : rawMax;
             if (!float.IsNaN(y))
             {
-                b.CondSum += y;
-                b.CondCount++;
-                b.CondMin = Math.Min(b.CondMin, y);
-                b.CondMax = Math.Max(b.CondMax, y);
+                condSum += y;
+                condCount++;
+                condMin = y < condMin ? y : condMin;
+                condMax = y > condMax ? y : condMax;
                 // NaN before the lag is filled (start, gaps) fails the comparison and is ignored.
                 var slope = Math.Abs(y - before);
-                if (slope > b.SlopePeak)
+                if (slope > peak)
                 {
-                    b.SlopePeak = slope;
-                    b.SlopePeakSample = _written + i;
+                    peak = slope;
+                    peakAt = i;
                 }
             }
+        }
+
+        b.Valid = valid;
+        b.Missing = missing;
+        b.Railed = railed;
+        b.CondCount = condCount;
+        b.RawMin = rawMin;
+        b.RawMax = rawMax;
+        b.CondMin = condMin;
+        b.CondMax = condMax;
+        b.CondSum = condSum;
+        if (peakAt >= 0)
+        {
+            b.SlopePeak = peak;
+            b.SlopePeakSample = _written + peakAt;
         }
 
         _ringPos = pos;
         _written += raw.Length;
         _previous = previous;
         _run = run;
-        _current = b;
     }
 
     /// <summary>Stores the current block as block <paramref name="blockIndex"/> and starts the next.</summary>

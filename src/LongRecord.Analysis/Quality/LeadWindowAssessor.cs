@@ -6,8 +6,9 @@ namespace LongRecord.Analysis.Quality;
 /// <param name="LowFrequencyIndex">Low-frequency activity over the lead's QRS amplitude reference.</param>
 /// <param name="PeakRatio">Quiet level over the peak of the QRS-band slope within the window's context (1: nothing stands out).</param>
 /// <param name="ResidualIndex">Median beat-to-beat residual outside the QRS over the lead's QRS amplitude reference (NaN: no complexes found or no reference).</param>
+/// <param name="Complexes">QRS-like complexes the residual tracker located around the window.</param>
 /// <param name="AmplitudeRatio">The window's conditioned range over the lead's QRS amplitude reference (NaN before a reference exists).</param>
-internal readonly record struct LeadWindowFeatures(LeadState Base, float SlopeIndex, float LowFrequencyIndex, float ResidualIndex, float PeakRatio, float AmplitudeRatio)
+internal readonly record struct LeadWindowFeatures(LeadState Base, float SlopeIndex, float LowFrequencyIndex, float ResidualIndex, float PeakRatio, int Complexes, float AmplitudeRatio)
 {
     public bool HasSignal => Base == LeadState.Good;
 
@@ -16,6 +17,13 @@ internal readonly record struct LeadWindowFeatures(LeadState Base, float SlopeIn
     /// would make neighbouring beats differ.
     /// </summary>
     public bool IsOrganised(QualitySettings settings) => ResidualIndex < settings.OrganisedResidualIndex;
+
+    /// <summary>
+    /// No QRS stands out: the slope peaks are even across the window, or no complex reaching the QRS slope level was
+    /// found although the lead swings like its QRS complexes (fibrillation is slower-sloped than the complexes).
+    /// </summary>
+    public bool LacksQrs(QualitySettings settings) =>
+        PeakRatio >= settings.ChaoticPeakRatio || (Complexes == 0 && AmplitudeRatio >= settings.ChaoticMinAmplitude);
 }
 
 /// <summary>
@@ -26,6 +34,9 @@ internal readonly record struct LeadWindowFeatures(LeadState Base, float SlopeIn
 internal sealed class LeadWindowAssessor
 {
     private const int MaxContextBlocks = 20;
+
+    // References from fewer windows are not trusted (the first window starts with the conditioner settling).
+    private const int MinReferenceWindows = 5;
 
     private readonly QualitySettings _settings;
     private readonly float[] _slopeHistory;
@@ -47,9 +58,10 @@ internal sealed class LeadWindowAssessor
 
     /// <summary>
     /// Own blocks [ownFrom, ownTo) make the window; context blocks [contextFrom, contextTo) surround it;
-    /// <paramref name="residualMv"/> is the median beat residual around it (NaN: no beats).
+    /// <paramref name="residualMv"/> is the median beat residual around it (NaN: no beats) and <paramref name="complexes"/>
+    /// the number of complexes located there.
     /// </summary>
-    public LeadWindowFeatures Assess(LeadSignalBlocks blocks, long ownFrom, long ownTo, long contextFrom, long contextTo, float residualMv)
+    public LeadWindowFeatures Assess(LeadSignalBlocks blocks, long ownFrom, long ownTo, long contextFrom, long contextTo, float residualMv, int complexes)
     {
         int valid = 0, missing = 0, stuck = 0, railed = 0;
         float rawMin = float.PositiveInfinity, rawMax = float.NegativeInfinity;
@@ -99,7 +111,7 @@ internal sealed class LeadWindowAssessor
 
         if (state != LeadState.Good)
         {
-            return new LeadWindowFeatures(state, 0, 0, float.NaN, 1, 0);
+            return new LeadWindowFeatures(state, 0, 0, float.NaN, 1, 0, 0);
         }
 
         Span<float> peaks = stackalloc float[MaxContextBlocks];
@@ -141,6 +153,7 @@ internal sealed class LeadWindowAssessor
             _amplitudeReference > 0 ? lowFrequency / _amplitudeReference : 0,
             _amplitudeReference > 0 && !float.IsNaN(residualMv) ? residualMv / _amplitudeReference : float.NaN,
             ratio,
+            complexes,
             _amplitudeReference > 0 && float.IsFinite(ownRange) ? ownRange / _amplitudeReference : float.NaN);
         if (ratio < s.ReferenceGateRatio && ownPeak > 0 && float.IsFinite(ownRange))
         {
@@ -156,9 +169,9 @@ internal sealed class LeadWindowAssessor
         for (var j = from; j < to; j++)
         {
             ref readonly var b = ref blocks.Block(j);
-            if (b.Stuck > 0 && (b.StuckMax >= high || b.StuckMin <= low))
+            if (b.Plateau > 0 && (b.PlateauMax >= high || b.PlateauMin <= low))
             {
-                clipped += b.Stuck;
+                clipped += b.Plateau;
             }
         }
 
@@ -171,15 +184,58 @@ internal sealed class LeadWindowAssessor
         _amplitudeHistory[_historyNext] = range;
         _historyNext = (_historyNext + 1) % _slopeHistory.Length;
         _historyCount = Math.Min(_historyCount + 1, _slopeHistory.Length);
-        _slopeReference = Median(_slopeHistory.AsSpan(0, _historyCount));
-        _amplitudeReference = Median(_amplitudeHistory.AsSpan(0, _historyCount));
+        if (_historyCount >= MinReferenceWindows)
+        {
+            _slopeReference = Median(_slopeHistory.AsSpan(0, _historyCount));
+            _amplitudeReference = Median(_amplitudeHistory.AsSpan(0, _historyCount));
+        }
     }
 
+    // Upper median by selection (Hoare's quickselect), cheaper than sorting once per window.
     private static float Median(ReadOnlySpan<float> values)
     {
-        Span<float> copy = stackalloc float[values.Length];
-        values.CopyTo(copy);
-        copy.Sort();
-        return copy[copy.Length / 2];
+        Span<float> a = stackalloc float[values.Length];
+        values.CopyTo(a);
+        var k = a.Length / 2;
+        int lo = 0, hi = a.Length - 1;
+        while (lo < hi)
+        {
+            var pivot = a[(lo + hi) >>> 1];
+            int i = lo, j = hi;
+            while (i <= j)
+            {
+                while (a[i] < pivot)
+                {
+                    i++;
+                }
+
+                while (a[j] > pivot)
+                {
+                    j--;
+                }
+
+                if (i <= j)
+                {
+                    (a[i], a[j]) = (a[j], a[i]);
+                    i++;
+                    j--;
+                }
+            }
+
+            if (k <= j)
+            {
+                hi = j;
+            }
+            else if (k >= i)
+            {
+                lo = i;
+            }
+            else
+            {
+                break;
+            }
+        }
+
+        return a[k];
     }
 }

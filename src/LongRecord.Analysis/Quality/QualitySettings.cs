@@ -34,6 +34,12 @@ public sealed record QualitySettings
     /// </summary>
     public double StuckMinS { get; init; } = 0.2;
 
+    /// <summary>
+    /// A run of identical samples this long at the window's own maximum or minimum is a clipping plateau (a pointed R
+    /// or S peak holds its value for a sample or two); common practice, no source.
+    /// </summary>
+    public double ClipPlateauMinS { get; init; } = 0.06;
+
     /// <summary>A lead is flat when this share of its window is stuck away from a rail (a step into lead-off).</summary>
     public double StuckFraction { get; init; } = 0.5;
 
@@ -138,6 +144,12 @@ public sealed record QualitySettings
         Positive(RailToleranceMv, nameof(RailToleranceMv));
         Positive(FlatRangeMv, nameof(FlatRangeMv));
         Positive(StuckMinS, nameof(StuckMinS));
+        Positive(ClipPlateauMinS, nameof(ClipPlateauMinS));
+        if (ClipPlateauMinS > StuckMinS)
+        {
+            problems.Add($"{nameof(ClipPlateauMinS)} must not exceed {nameof(StuckMinS)} (is {ClipPlateauMinS})");
+        }
+
         Fraction(SaturatedFraction, nameof(SaturatedFraction));
         Fraction(StuckFraction, nameof(StuckFraction));
         Fraction(MissingFraction, nameof(MissingFraction));

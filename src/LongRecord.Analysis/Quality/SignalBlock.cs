@@ -12,10 +12,13 @@ internal struct SignalBlock
     /// <summary>Samples that repeat the previous value within the rail tolerance of a rail.</summary>
     public int Railed;
 
+    /// <summary>Samples that repeat the previous value for at least the clipping-plateau run length.</summary>
+    public int Plateau;
+
+    public float PlateauMin;
+    public float PlateauMax;
     public float RawMin;
     public float RawMax;
-    public float StuckMin;
-    public float StuckMax;
     public float CondMin;
     public float CondMax;
     public double CondSum;
@@ -31,8 +34,8 @@ internal struct SignalBlock
     {
         RawMin = float.PositiveInfinity,
         RawMax = float.NegativeInfinity,
-        StuckMin = float.PositiveInfinity,
-        StuckMax = float.NegativeInfinity,
+        PlateauMin = float.PositiveInfinity,
+        PlateauMax = float.NegativeInfinity,
         CondMin = float.PositiveInfinity,
         CondMax = float.NegativeInfinity,
     };

@@ -270,7 +270,8 @@ public sealed class SignalQualityMonitor
         for (var k = 0; k < _leads; k++)
         {
             var residual = _residuals[k].MedianResidual(residualFrom, residualTo);
-            _features[k] = _assessors[k].Assess(_blocks[k], ownFrom, ownTo, contextFrom, contextTo, residual);
+            var complexes = _residuals[k].CountComplexes(residualFrom, residualTo);
+            _features[k] = _assessors[k].Assess(_blocks[k], ownFrom, ownTo, contextFrom, contextTo, residual, complexes);
         }
 
         var chaotic = IsChaoticCandidate(BlockStart(contextFrom), Math.Min(BlockStart(contextTo), _n));
@@ -291,7 +292,7 @@ public sealed class SignalQualityMonitor
             if (_features[k].HasSignal)
             {
                 signal++;
-                if (_features[k].PeakRatio < s.ChaoticPeakRatio)
+                if (!_features[k].LacksQrs(s))
                 {
                     return false;
                 }

@@ -67,7 +67,7 @@ internal sealed class WindowDecisions
             {
                 var f = features[k];
                 states[k] = !f.HasSignal ? f.Base
-                    : chaotic && f.PeakRatio >= _settings.ChaoticPeakRatio ? LeadState.Chaotic
+                    : chaotic && f.LacksQrs(_settings) ? LeadState.Chaotic
                     : UnreadableOpened(k, w) ? LeadState.Unreadable
                     : IsNoisy(f) ? LeadState.Noisy
                     : LeadState.Good;
@@ -144,6 +144,17 @@ internal sealed class WindowDecisions
     private bool ChaoticClosed(long w)
     {
         var r = _chaoticRadius;
+        var any = false;
+        for (var i = w - 4 * r; i <= w + 4 * r && !any; i++)
+        {
+            any = ChaoticCandidate(i);
+        }
+
+        if (!any)
+        {
+            return false;
+        }
+
         for (var i = w - r; i <= w + r; i++)
         {
             if (!ChaoticDilatedOpened(i))
