@@ -8,7 +8,8 @@ namespace LongRecord.Analysis.Quality;
 /// mean absolute difference is the beat's residual; the comparison with the next complex also counts for the previous
 /// one, so the first beat of a new morphology (the onset of a run) finds its like. Noise appears twice in the
 /// difference; P and T waves, which repeat, cancel; an isolated ectopic beat still finds a normal neighbour for the
-/// beat after it. Values are common practice, no source.
+/// beat after it. The segments are sampled every few samples (about 120 per second): the residual is a mean, and
+/// P and T waves are slow. Values are common practice, no source.
 /// </summary>
 internal sealed class BeatResidualTracker
 {
@@ -22,12 +23,15 @@ internal sealed class BeatResidualTracker
     private readonly int _qrsBefore;
     private readonly int _qrsAfter;
     private readonly int _after;
+    private readonly int _stride;
+    private readonly int _points;
     private readonly float[][] _segments = new float[Compared][];
     private readonly long[] _segmentR = new long[Compared];
     private readonly long[] _pending = new long[PendingCapacity];
     private readonly long[] _resultR = new long[ResultCapacity];
     private readonly float[] _result = new float[ResultCapacity];
     private readonly float[] _current;
+    private readonly float[] _raw;
     private int _segmentCount;
     private int _segmentNext;
     private int _pendingHead;
@@ -41,12 +45,15 @@ internal sealed class BeatResidualTracker
         _qrsBefore = (int)Math.Round(0.06 * samplingRateHz);
         _qrsAfter = (int)Math.Round(0.08 * samplingRateHz);
         _after = (int)Math.Round(0.4 * samplingRateHz);
+        _stride = Math.Max(1, (int)(samplingRateHz / 120));
+        _points = (_before + _after + _stride - 1) / _stride;
         for (var i = 0; i < Compared; i++)
         {
-            _segments[i] = new float[_before + _after];
+            _segments[i] = new float[_points];
         }
 
-        _current = new float[_before + _after];
+        _current = new float[_points];
+        _raw = new float[_before + _after];
     }
 
     /// <summary>Call after every closed block; <paramref name="closedBlocks"/> blocks are closed so far.</summary>
@@ -130,13 +137,16 @@ internal sealed class BeatResidualTracker
             return;
         }
 
-        blocks.CopyRange(r - _before, r + _after, _current);
-        foreach (var v in _current)
+        blocks.CopyRange(r - _before, r + _after, _raw);
+        for (int i = 0, j = 0; i < _raw.Length; i += _stride, j++)
         {
+            var v = _raw[i];
             if (float.IsNaN(v))
             {
                 return;
             }
+
+            _current[j] = v;
         }
 
         var best = float.NaN;
@@ -172,44 +182,44 @@ internal sealed class BeatResidualTracker
 
     private int LastResult => (_resultNext + ResultCapacity - 1) % ResultCapacity;
 
-    // Mean absolute difference of the two segments outside the QRS, each with its own mean removed; index 0 of a
-    // segment is 'before' samples ahead of its R.
+    // Mean absolute difference of the two segments outside the QRS, each with its own mean removed; point p of a
+    // segment lies p × stride samples after 'before' samples ahead of its R.
     private float Difference(float[] a, float[] b, int endAfterR)
     {
-        var stop = _before + endAfterR;
-        var qrsFrom = _before - _qrsBefore;
-        var qrsTo = _before + _qrsAfter;
-        double sa = 0, sb = 0;
-        var n = 0;
-        for (var t = 0; t < stop; t++)
-        {
-            if (t >= qrsFrom && t < qrsTo)
-            {
-                continue;
-            }
-
-            sa += a[t];
-            sb += b[t];
-            n++;
-        }
-
-        if (n == 0)
+        var stop = Math.Min(_points, (_before + endAfterR + _stride - 1) / _stride);
+        var qrsFrom = Math.Min(stop, (_before - _qrsBefore + _stride - 1) / _stride);
+        var qrsTo = Math.Min(stop, (_before + _qrsAfter + _stride - 1) / _stride);
+        var n = qrsFrom + (stop - qrsTo);
+        if (n <= 0)
         {
             return float.NaN;
         }
 
-        var offset = (sa - sb) / n;
-        double sum = 0;
-        for (var t = 0; t < stop; t++)
+        float sa = 0, sb = 0;
+        for (var t = 0; t < qrsFrom; t++)
         {
-            if (t >= qrsFrom && t < qrsTo)
-            {
-                continue;
-            }
+            sa += a[t];
+            sb += b[t];
+        }
 
+        for (var t = qrsTo; t < stop; t++)
+        {
+            sa += a[t];
+            sb += b[t];
+        }
+
+        var offset = (sa - sb) / n;
+        float sum = 0;
+        for (var t = 0; t < qrsFrom; t++)
+        {
             sum += Math.Abs(a[t] - b[t] - offset);
         }
 
-        return (float)(sum / n);
+        for (var t = qrsTo; t < stop; t++)
+        {
+            sum += Math.Abs(a[t] - b[t] - offset);
+        }
+
+        return sum / n;
     }
 }

@@ -2,11 +2,14 @@ namespace LongRecord.Analysis.Quality;
 
 /// <summary>
 /// The per-sample part of the monitor for one lead: folds raw and conditioned samples into 100 ms
-/// <see cref="SignalBlock"/>s and keeps the last few seconds of the conditioned signal for the narrow-band measure.
-/// All state is carried between calls, so any block size gives the same blocks.
+/// <see cref="SignalBlock"/>s and keeps the last few seconds of the conditioned signal (for the block statistics,
+/// the beat residual and the narrow-band measure). Raw statistics are gathered sample by sample; the conditioned ones
+/// when a block closes, over the block's own samples in a fixed order. All state is carried between calls, so any
+/// block size gives the same blocks.
 /// </summary>
 internal sealed class LeadSignalBlocks
 {
+    /// <summary>Blocks kept (a power of two).</summary>
     public const int BlockRing = 32;
 
     private readonly int _lag;
@@ -16,9 +19,11 @@ internal sealed class LeadSignalBlocks
     private readonly float _railHigh;
     private readonly float _tolerance;
     private readonly float[] _ring;
+    private readonly float[] _scratch;
     private readonly SignalBlock[] _blocks = new SignalBlock[BlockRing];
     private int _ringPos;
     private long _written;
+    private long _blockStart;
     private float _previous = float.NaN;
     private int _run;
     private SignalBlock _current = SignalBlock.Empty;
@@ -37,6 +42,7 @@ internal sealed class LeadSignalBlocks
         _railHigh = double.IsNaN(railHighMv) ? float.PositiveInfinity : (float)railHighMv;
         _ring = new float[(int)Math.Ceiling(2.6 * samplingRateHz) + _lag];
         Array.Fill(_ring, float.NaN);
+        _scratch = new float[(int)Math.Ceiling(samplingRateHz / 10) + 1 + _lag];
     }
 
     public int RingLength => _ring.Length;
@@ -52,12 +58,10 @@ internal sealed class LeadSignalBlocks
             throw new ArgumentException("the conditioned span is shorter than the raw one", nameof(cond));
         }
 
-        // The hot loop of the monitor: everything lives in locals, and the usual paths are free of unpredictable
-        // branches (runs of equal samples are common at 360 Hz and 5 µV steps).
-        var ring = _ring;
-        var len = ring.Length;
-        var pos = _ringPos;
-        var lag = _lag;
+        var n = raw.Length;
+        StoreInRing(cond[..n]);
+        // The raw statistics need the sample order (runs of equal samples). Everything lives in locals and the usual
+        // path has no unpredictable branch: runs of equal samples are common at 360 Hz and 5 µV steps.
         var stuckRun = _stuckRun;
         var plateauRun = _plateauRun;
         var railLow = _railLow;
@@ -66,22 +70,14 @@ internal sealed class LeadSignalBlocks
         var previous = _previous;
         var run = _run;
         ref var b = ref _current;
-        int valid = b.Valid, missing = b.Missing, railed = b.Railed, condCount = b.CondCount;
-        float rawMin = b.RawMin, rawMax = b.RawMax, condMin = b.CondMin, condMax = b.CondMax, peak = b.SlopePeak;
-        var condSum = b.CondSum;
-        var peakAt = -1;
-        for (var i = 0; i < raw.Length; i++)
+        int valid = b.Valid, missing = b.Missing, railed = b.Railed;
+        float rawMin = b.RawMin, rawMax = b.RawMax;
+        for (var i = 0; i < n; i++)
         {
             var x = raw[i];
-            var y = cond[i];
-            var back = pos - lag;
-            back += (back >> 31) & len;
-            var before = ring[back];
-            // x − x is NaN for a missing sample and 0 otherwise: missing samples enter the ring as NaN.
-            ring[pos] = y + (x - x);
-            pos = pos + 1 == len ? 0 : pos + 1;
             if (float.IsNaN(x))
             {
+                MarkMissing(n - i);
                 missing++;
                 previous = float.NaN;
                 run = 0;
@@ -104,39 +100,14 @@ internal sealed class LeadSignalBlocks
 
             rawMin = x < rawMin ? x : rawMin;
             rawMax = x > rawMax ? x : rawMax;
-            if (!float.IsNaN(y))
-            {
-                condSum += y;
-                condCount++;
-                condMin = y < condMin ? y : condMin;
-                condMax = y > condMax ? y : condMax;
-                // NaN before the lag is filled (start, gaps) fails the comparison and is ignored.
-                var slope = Math.Abs(y - before);
-                if (slope > peak)
-                {
-                    peak = slope;
-                    peakAt = i;
-                }
-            }
         }
 
         b.Valid = valid;
         b.Missing = missing;
         b.Railed = railed;
-        b.CondCount = condCount;
         b.RawMin = rawMin;
         b.RawMax = rawMax;
-        b.CondMin = condMin;
-        b.CondMax = condMax;
-        b.CondSum = condSum;
-        if (peakAt >= 0)
-        {
-            b.SlopePeak = peak;
-            b.SlopePeakSample = _written + peakAt;
-        }
-
-        _ringPos = pos;
-        _written += raw.Length;
+        _written += n;
         _previous = previous;
         _run = run;
     }
@@ -144,22 +115,34 @@ internal sealed class LeadSignalBlocks
     /// <summary>Stores the current block as block <paramref name="blockIndex"/> and starts the next.</summary>
     public void Close(long blockIndex)
     {
-        _blocks[blockIndex % BlockRing] = _current;
+        ConditionedStatistics(ref _current);
+        _blocks[(int)(blockIndex & (BlockRing - 1))] = _current;
         _current = SignalBlock.Empty;
+        _blockStart = _written;
     }
 
-    public ref readonly SignalBlock Block(long blockIndex) => ref _blocks[blockIndex % BlockRing];
+    public ref readonly SignalBlock Block(long blockIndex) => ref _blocks[(int)(blockIndex & (BlockRing - 1))];
 
     /// <summary>
     /// Copies conditioned samples <paramref name="startSample"/> … <paramref name="endSample"/> − 1 into
-    /// <paramref name="destination"/>; they must be among the last <see cref="RingLength"/> written.
+    /// <paramref name="destination"/>; they must be among the last <see cref="RingLength"/> written. Samples before the
+    /// first one read as NaN.
     /// </summary>
     public void CopyRange(long startSample, long endSample, Span<float> destination)
     {
         var count = (int)(endSample - startSample);
-        if (_written - startSample > _ring.Length || endSample > _written || count < 0)
+        if (_written - startSample > _ring.Length + Math.Max(0, -startSample) || endSample > _written || count < 0)
         {
             throw new InvalidOperationException($"samples {startSample}…{endSample} are no longer held ({_written} written, ring of {_ring.Length})");
+        }
+
+        if (startSample < 0)
+        {
+            var before = (int)Math.Min(count, -startSample);
+            destination[..before].Fill(float.NaN);
+            destination = destination[before..];
+            startSample += before;
+            count -= before;
         }
 
         var at = _ringPos - (int)(_written - startSample);
@@ -168,10 +151,70 @@ internal sealed class LeadSignalBlocks
             at += _ring.Length;
         }
 
+        var first = Math.Min(count, _ring.Length - at);
+        _ring.AsSpan(at, first).CopyTo(destination);
+        _ring.AsSpan(0, count - first).CopyTo(destination[first..]);
+    }
+
+    private void StoreInRing(ReadOnlySpan<float> cond)
+    {
+        var first = Math.Min(cond.Length, _ring.Length - _ringPos);
+        cond[..first].CopyTo(_ring.AsSpan(_ringPos));
+        cond[first..].CopyTo(_ring);
+        _ringPos = (_ringPos + cond.Length) % _ring.Length;
+    }
+
+    // A missing raw sample enters the ring as NaN; it lies `back` samples behind the ring position.
+    private void MarkMissing(int back)
+    {
+        var at = _ringPos - back;
+        _ring[at < 0 ? at + _ring.Length : at] = float.NaN;
+    }
+
+    // Sum, extremes and QRS-band slope peak of the block's conditioned samples, over the block's own samples in a fixed
+    // order: the same whatever pieces the input came in.
+    private void ConditionedStatistics(ref SignalBlock b)
+    {
+        var count = (int)(_written - _blockStart);
+        var lag = _lag;
+        var span = _scratch.AsSpan(0, lag + count);
+        CopyRange(_blockStart - lag, _written, span);
+        var block = span[lag..];
+        if (!SpanStatistics.HasNaN(span))
+        {
+            var (sum, min, max) = SpanStatistics.SumMinMax(block);
+            var (peak, at) = SpanStatistics.LaggedAbsolutePeak(span, lag);
+            b.CondSum = sum;
+            b.CondCount = count;
+            b.CondMin = min;
+            b.CondMax = max;
+            b.SlopePeak = peak;
+            b.SlopePeakSample = _blockStart + at;
+            return;
+        }
+
+        double total = 0;
         for (var i = 0; i < count; i++)
         {
-            destination[i] = _ring[at];
-            at = at + 1 == _ring.Length ? 0 : at + 1;
+            var y = block[i];
+            if (float.IsNaN(y))
+            {
+                continue;
+            }
+
+            total += y;
+            b.CondCount++;
+            b.CondMin = Math.Min(b.CondMin, y);
+            b.CondMax = Math.Max(b.CondMax, y);
+            // NaN before the lag is filled (start, gaps) fails the comparison and is ignored.
+            var slope = Math.Abs(y - span[i]);
+            if (slope > b.SlopePeak)
+            {
+                b.SlopePeak = slope;
+                b.SlopePeakSample = _blockStart + i;
+            }
         }
+
+        b.CondSum = total;
     }
 }

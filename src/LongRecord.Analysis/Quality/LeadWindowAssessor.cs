@@ -137,15 +137,17 @@ internal sealed class LeadWindowAssessor
         }
 
         peaks = peaks[..n];
-        peaks.Sort();
-        var peak = n > 0 ? peaks[n - 1] : 0;
+        var peak = 0f;
+        foreach (var p in peaks)
+        {
+            peak = Math.Max(peak, p);
+        }
+
         // The 25th percentile of the block peaks lies between the complexes at any rate up to about 150 per minute:
         // QRS complexes touch at most half the blocks.
-        var quiet = n > 0 ? peaks[n / 4] : 0;
+        var quiet = n > 0 ? Select(peaks, n / 4) : 0;
         var ratio = peak > 0 ? quiet / peak : 1;
-        steps = steps[..m];
-        steps.Sort();
-        var lowFrequency = m > 0 ? steps[m / 4] : 0;
+        var lowFrequency = m > 0 ? Select(steps[..m], m / 4) : 0;
         var ownRange = condMax - condMin;
         var features = new LeadWindowFeatures(
             LeadState.Good,
@@ -191,12 +193,16 @@ internal sealed class LeadWindowAssessor
         }
     }
 
-    // Upper median by selection (Hoare's quickselect), cheaper than sorting once per window.
     private static float Median(ReadOnlySpan<float> values)
     {
         Span<float> a = stackalloc float[values.Length];
         values.CopyTo(a);
-        var k = a.Length / 2;
+        return Select(a, a.Length / 2);
+    }
+
+    // The k-th smallest value (0-based) by Hoare's quickselect, cheaper than sorting once per window; reorders a.
+    private static float Select(Span<float> a, int k)
+    {
         int lo = 0, hi = a.Length - 1;
         while (lo < hi)
         {
