@@ -26,7 +26,8 @@ internal sealed class LeadSignalBlocks
     private long _blockStart;
     private float _previous = float.NaN;
     private int _run;
-    private SignalBlock _current = SignalBlock.Empty;
+    private static readonly SignalBlock s_empty = SignalBlock.Empty;
+    private SignalBlock _current = s_empty;
 
     public LeadSignalBlocks(double samplingRateHz, double railLowMv, double railHighMv, QualitySettings settings)
     {
@@ -60,18 +61,14 @@ internal sealed class LeadSignalBlocks
 
         var n = raw.Length;
         StoreInRing(cond[..n]);
-        // The raw statistics need the sample order (runs of equal samples). Everything lives in locals and the usual
-        // path has no unpredictable branch: runs of equal samples are common at 360 Hz and 5 µV steps.
+        // The raw statistics need the sample order (runs of equal samples). The usual path is a compare and a select
+        // per sample: runs of equal samples are common at 360 Hz and 5 µV steps, long ones are rare.
         var stuckRun = _stuckRun;
         var plateauRun = _plateauRun;
-        var railLow = _railLow;
-        var railHigh = _railHigh;
-        var tolerance = _tolerance;
         var previous = _previous;
         var run = _run;
         ref var b = ref _current;
-        int valid = b.Valid, missing = b.Missing, railed = b.Railed;
-        float rawMin = b.RawMin, rawMax = b.RawMax;
+        var missing = 0;
         for (var i = 0; i < n; i++)
         {
             var x = raw[i];
@@ -84,32 +81,48 @@ internal sealed class LeadSignalBlocks
                 continue;
             }
 
-            valid++;
-            var same = x == previous;
-            run = same ? run + 1 : 1;
+            run = x == previous ? run + 1 : 1;
             previous = x;
-            var atRail = Math.Abs(x - railHigh) <= tolerance | Math.Abs(x - railLow) <= tolerance;
-            railed += same & atRail ? 1 : 0;
             if (run >= plateauRun)
             {
-                b.Plateau++;
-                b.PlateauMin = Math.Min(b.PlateauMin, x);
-                b.PlateauMax = Math.Max(b.PlateauMax, x);
-                b.Stuck += run >= stuckRun ? 1 : 0;
+                LongRun(ref b, x, run >= stuckRun);
             }
-
-            rawMin = x < rawMin ? x : rawMin;
-            rawMax = x > rawMax ? x : rawMax;
         }
 
-        b.Valid = valid;
-        b.Missing = missing;
-        b.Railed = railed;
-        b.RawMin = rawMin;
-        b.RawMax = rawMax;
+        if (missing == 0)
+        {
+            var (_, min, max) = SpanStatistics.SumMinMax(raw);
+            b.RawMin = Math.Min(b.RawMin, min);
+            b.RawMax = Math.Max(b.RawMax, max);
+        }
+        else
+        {
+            foreach (var x in raw)
+            {
+                if (!float.IsNaN(x))
+                {
+                    b.RawMin = Math.Min(b.RawMin, x);
+                    b.RawMax = Math.Max(b.RawMax, x);
+                }
+            }
+        }
+
+        b.Valid += n - missing;
+        b.Missing += missing;
         _written += n;
         _previous = previous;
         _run = run;
+    }
+
+    // A sample inside a run of equal samples at least a clipping plateau long. Saturation needs such a run: a recorder
+    // on its rail holds the value, while a signal that only passes the rail does not.
+    private void LongRun(ref SignalBlock b, float x, bool stuck)
+    {
+        b.Plateau++;
+        b.PlateauMin = Math.Min(b.PlateauMin, x);
+        b.PlateauMax = Math.Max(b.PlateauMax, x);
+        b.Stuck += stuck ? 1 : 0;
+        b.Railed += Math.Abs(x - _railHigh) <= _tolerance || Math.Abs(x - _railLow) <= _tolerance ? 1 : 0;
     }
 
     /// <summary>Stores the current block as block <paramref name="blockIndex"/> and starts the next.</summary>
@@ -117,7 +130,7 @@ internal sealed class LeadSignalBlocks
     {
         ConditionedStatistics(ref _current);
         _blocks[(int)(blockIndex & (BlockRing - 1))] = _current;
-        _current = SignalBlock.Empty;
+        _current = s_empty;
         _blockStart = _written;
     }
 
@@ -180,10 +193,9 @@ internal sealed class LeadSignalBlocks
         var span = _scratch.AsSpan(0, lag + count);
         CopyRange(_blockStart - lag, _written, span);
         var block = span[lag..];
-        if (!SpanStatistics.HasNaN(span))
+        var (nan, sum, min, max, peak, at) = SpanStatistics.Block(span, lag);
+        if (!nan)
         {
-            var (sum, min, max) = SpanStatistics.SumMinMax(block);
-            var (peak, at) = SpanStatistics.LaggedAbsolutePeak(span, lag);
             b.CondSum = sum;
             b.CondCount = count;
             b.CondMin = min;

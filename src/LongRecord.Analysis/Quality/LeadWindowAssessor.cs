@@ -39,18 +39,16 @@ internal sealed class LeadWindowAssessor
     private const int MinReferenceWindows = 5;
 
     private readonly QualitySettings _settings;
-    private readonly float[] _slopeHistory;
-    private readonly float[] _amplitudeHistory;
-    private int _historyCount;
-    private int _historyNext;
+    private readonly RunningMedian _slopeHistory;
+    private readonly RunningMedian _amplitudeHistory;
     private float _slopeReference;
     private float _amplitudeReference;
 
     public LeadWindowAssessor(QualitySettings settings)
     {
         _settings = settings;
-        _slopeHistory = new float[settings.ReferenceWindows];
-        _amplitudeHistory = new float[settings.ReferenceWindows];
+        _slopeHistory = new RunningMedian(settings.ReferenceWindows);
+        _amplitudeHistory = new RunningMedian(settings.ReferenceWindows);
     }
 
     /// <summary>The lead's QRS-band slope reference (0 until one window qualified).</summary>
@@ -63,7 +61,7 @@ internal sealed class LeadWindowAssessor
     /// </summary>
     public LeadWindowFeatures Assess(LeadSignalBlocks blocks, long ownFrom, long ownTo, long contextFrom, long contextTo, float residualMv, int complexes)
     {
-        int valid = 0, missing = 0, stuck = 0, railed = 0;
+        int valid = 0, missing = 0, stuck = 0, railed = 0, plateau = 0;
         float rawMin = float.PositiveInfinity, rawMax = float.NegativeInfinity;
         float condMin = float.PositiveInfinity, condMax = float.NegativeInfinity, ownPeak = 0;
         for (var j = ownFrom; j < ownTo; j++)
@@ -73,6 +71,7 @@ internal sealed class LeadWindowAssessor
             missing += b.Missing;
             stuck += b.Stuck;
             railed += b.Railed;
+            plateau += b.Plateau;
             rawMin = Math.Min(rawMin, b.RawMin);
             rawMax = Math.Max(rawMax, b.RawMax);
             condMin = Math.Min(condMin, b.CondMin);
@@ -95,7 +94,7 @@ internal sealed class LeadWindowAssessor
         {
             state = LeadState.Flat;
         }
-        else if (ClippedAtExtremes(blocks, ownFrom, ownTo, rawMin + tolerance, rawMax - tolerance) >= s.SaturatedFraction * valid)
+        else if (plateau >= s.SaturatedFraction * valid && ClippedAtExtremes(blocks, ownFrom, ownTo, rawMin + tolerance, rawMax - tolerance) >= s.SaturatedFraction * valid)
         {
             // A plateau at the window's own extreme: clipping where the rails are unknown or lie inside them.
             state = LeadState.Saturated;
@@ -182,66 +181,38 @@ internal sealed class LeadWindowAssessor
 
     private void Remember(float slopePeak, float range)
     {
-        _slopeHistory[_historyNext] = slopePeak;
-        _amplitudeHistory[_historyNext] = range;
-        _historyNext = (_historyNext + 1) % _slopeHistory.Length;
-        _historyCount = Math.Min(_historyCount + 1, _slopeHistory.Length);
-        if (_historyCount >= MinReferenceWindows)
+        _slopeHistory.Add(slopePeak);
+        _amplitudeHistory.Add(range);
+        if (_slopeHistory.Count >= MinReferenceWindows)
         {
-            _slopeReference = Median(_slopeHistory.AsSpan(0, _historyCount));
-            _amplitudeReference = Median(_amplitudeHistory.AsSpan(0, _historyCount));
+            _slopeReference = _slopeHistory.Median;
+            _amplitudeReference = _amplitudeHistory.Median;
         }
     }
 
-    private static float Median(ReadOnlySpan<float> values)
+    // The k-th smallest value (0-based): the k + 1 smallest kept in order while the values pass (k is 4 or 5 here).
+    private static float Select(ReadOnlySpan<float> values, int k)
     {
-        Span<float> a = stackalloc float[values.Length];
-        values.CopyTo(a);
-        return Select(a, a.Length / 2);
-    }
-
-    // The k-th smallest value (0-based) by Hoare's quickselect, cheaper than sorting once per window; reorders a.
-    private static float Select(Span<float> a, int k)
-    {
-        int lo = 0, hi = a.Length - 1;
-        while (lo < hi)
+        Span<float> smallest = stackalloc float[k + 1];
+        var n = 0;
+        foreach (var v in values)
         {
-            var pivot = a[(lo + hi) >>> 1];
-            int i = lo, j = hi;
-            while (i <= j)
+            if (n == smallest.Length && v >= smallest[n - 1])
             {
-                while (a[i] < pivot)
-                {
-                    i++;
-                }
-
-                while (a[j] > pivot)
-                {
-                    j--;
-                }
-
-                if (i <= j)
-                {
-                    (a[i], a[j]) = (a[j], a[i]);
-                    i++;
-                    j--;
-                }
+                continue;
             }
 
-            if (k <= j)
+            var at = n == smallest.Length ? n - 1 : n++;
+            while (at > 0 && smallest[at - 1] > v)
             {
-                hi = j;
+                smallest[at] = smallest[at - 1];
+                at--;
             }
-            else if (k >= i)
-            {
-                lo = i;
-            }
-            else
-            {
-                break;
-            }
+
+            smallest[at] = v;
         }
 
-        return a[k];
+        return smallest[Math.Min(k, n - 1)];
     }
+
 }

@@ -16,7 +16,7 @@ public sealed record QualitySettings
     /// <summary>Upper digital rail of each lead in mV (NaN or absent: unknown).</summary>
     public IReadOnlyList<double>? RailHighMv { get; init; }
 
-    /// <summary>A repeated sample this close to a rail counts as saturated (4 steps of MIT-BIH's 5 µV; common practice, no source).</summary>
+    /// <summary>A sample this close to a rail, held for a clipping plateau, counts as saturated (4 steps of MIT-BIH's 5 µV; common practice, no source).</summary>
     public double RailToleranceMv { get; init; } = 0.02;
 
     /// <summary>A lead is saturated in a window when this share of its samples sits on a rail or a clipping plateau (common practice, no source).</summary>

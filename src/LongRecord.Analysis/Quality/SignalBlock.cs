@@ -9,7 +9,7 @@ internal struct SignalBlock
     /// <summary>Samples that repeat the previous value for at least the stuck run length.</summary>
     public int Stuck;
 
-    /// <summary>Samples that repeat the previous value within the rail tolerance of a rail.</summary>
+    /// <summary>Samples within the rail tolerance of a rail inside a run of equal samples at least a clipping plateau long.</summary>
     public int Railed;
 
     /// <summary>Samples that repeat the previous value for at least the clipping-plateau run length.</summary>

@@ -71,51 +71,89 @@ internal static class SpanStatistics
         return (sum, min, max);
     }
 
-    /// <summary>Largest |x[i] − x[i − lag]| for i ≥ lag, and its index counted from <paramref name="lag"/> (the first on ties).</summary>
-    public static (float Peak, int At) LaggedAbsolutePeak(ReadOnlySpan<float> x, int lag)
+    /// <summary>
+    /// In one pass over <paramref name="x"/>[lag..]: sum, extremes, and the largest |x[i] − x[i − lag]| with its index
+    /// counted from <paramref name="lag"/> (the first on ties); <c>HasNaN</c> when any sample of <paramref name="x"/> is
+    /// NaN (the other results are then meaningless).
+    /// </summary>
+    public static (bool HasNaN, double Sum, float Min, float Max, float Peak, int At) Block(ReadOnlySpan<float> x, int lag)
     {
         var n = x.Length - lag;
         if (n <= 0)
         {
-            return (0, 0);
+            return (HasNaN(x), 0, float.PositiveInfinity, float.NegativeInfinity, 0, 0);
         }
 
         var now = x[lag..];
         var before = x[..n];
-        var peak = 0f;
+        float sum = 0, min = float.PositiveInfinity, max = float.NegativeInfinity, peak = 0;
+        var at = 0;
+        var nan = false;
         var i = 0;
-        if (Vector.IsHardwareAccelerated && n >= Vector<float>.Count)
+        var width = Vector<float>.Count;
+        if (Vector.IsHardwareAccelerated && n >= width)
         {
             var a = MemoryMarshal.Cast<float, Vector<float>>(now);
             var b = MemoryMarshal.Cast<float, Vector<float>>(before);
-            var vmax = Vector<float>.Zero;
+            var vs = Vector<float>.Zero;
+            var vmin = new Vector<float>(float.PositiveInfinity);
+            var vmax = new Vector<float>(float.NegativeInfinity);
+            var best = Vector<float>.Zero;
+            var where = Vector<int>.Zero;
+            var ok = Vector<int>.AllBitsSet;
             for (var k = 0; k < a.Length; k++)
             {
-                vmax = Vector.Max(vmax, Vector.Abs(a[k] - b[k]));
+                var v = a[k];
+                ok &= Vector.Equals(v, v) & Vector.Equals(b[k], b[k]);
+                vs += v;
+                vmin = Vector.Min(vmin, v);
+                vmax = Vector.Max(vmax, v);
+                // Per lane the largest slope and the first vector holding it.
+                var slope = Vector.Abs(v - b[k]);
+                var greater = Vector.GreaterThan(slope, best);
+                best = Vector.ConditionalSelect(greater, slope, best);
+                where = Vector.ConditionalSelect(greater, new Vector<int>(k), where);
             }
 
-            for (var k = 0; k < Vector<float>.Count; k++)
+            nan = !Vector.EqualsAll(ok, Vector<int>.AllBitsSet);
+            sum = Vector.Sum(vs);
+            for (var lane = 0; lane < width; lane++)
             {
-                peak = Math.Max(peak, vmax[k]);
+                min = Math.Min(min, vmin[lane]);
+                max = Math.Max(max, vmax[lane]);
+                var value = best[lane];
+                var index = where[lane] * width + lane;
+                if (value > peak || (value == peak && value > 0 && index < at))
+                {
+                    peak = value;
+                    at = index;
+                }
             }
 
-            i = a.Length * Vector<float>.Count;
+            i = a.Length * width;
         }
 
         for (; i < n; i++)
         {
-            peak = Math.Max(peak, Math.Abs(now[i] - before[i]));
-        }
-
-        // The position: the first sample reaching the peak.
-        for (var k = 0; k < n; k++)
-        {
-            if (Math.Abs(now[k] - before[k]) == peak)
+            var v = now[i];
+            nan |= float.IsNaN(v) || float.IsNaN(before[i]);
+            sum += v;
+            min = Math.Min(min, v);
+            max = Math.Max(max, v);
+            var slope = Math.Abs(v - before[i]);
+            if (slope > peak)
             {
-                return (peak, k);
+                peak = slope;
+                at = i;
             }
         }
 
-        return (peak, 0);
+        // The first lag samples are history only: a NaN there counts too.
+        if (!nan && lag > n)
+        {
+            nan = HasNaN(x);
+        }
+
+        return (nan, sum, min, max, peak, at);
     }
 }

@@ -120,6 +120,12 @@ internal sealed class WindowDecisions
 
     private bool UnreadableOpened(int lead, long w)
     {
+        // An opening keeps only candidates: most windows end here.
+        if (!UnreadableCandidate(lead, w))
+        {
+            return false;
+        }
+
         var r = _unreadableRadius;
         for (var j = w - r; j <= w + r; j++)
         {
