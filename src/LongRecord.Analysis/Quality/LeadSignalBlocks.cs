@@ -91,7 +91,7 @@ internal sealed class LeadSignalBlocks
 
         if (missing == 0)
         {
-            var (_, min, max) = SpanStatistics.SumMinMax(raw);
+            var (min, max) = SpanStatistics.MinMax(raw);
             b.RawMin = Math.Min(b.RawMin, min);
             b.RawMax = Math.Max(b.RawMax, max);
         }
@@ -174,7 +174,8 @@ internal sealed class LeadSignalBlocks
         var first = Math.Min(cond.Length, _ring.Length - _ringPos);
         cond[..first].CopyTo(_ring.AsSpan(_ringPos));
         cond[first..].CopyTo(_ring);
-        _ringPos = (_ringPos + cond.Length) % _ring.Length;
+        var pos = _ringPos + cond.Length;
+        _ringPos = pos >= _ring.Length ? pos - _ring.Length : pos;
     }
 
     // A missing raw sample enters the ring as NaN; it lies `back` samples behind the ring position.

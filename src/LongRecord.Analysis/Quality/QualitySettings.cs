@@ -48,12 +48,15 @@ public sealed record QualitySettings
 
     /// <summary>
     /// Noisy when the quiet level of the QRS-band slope (25th percentile of the 100 ms block peaks) reaches this share
-    /// of the lead's own QRS slope level; measured (3.8 % of MITDB windows outside expert noise marks, 65 % of NSTDB
-    /// 118e06 noise windows).
+    /// of the lead's own QRS slope level; measured (alone it flags 3.9 % of MITDB lead-windows outside the experts'
+    /// noise marks and 72 % of NSTDB 118e06's noise windows).
     /// </summary>
     public double NoisyIndex { get; init; } = 0.15;
 
-    /// <summary>Noisy when the low-frequency activity (25th percentile of |Δ| of the 100 ms block means) reaches this share of the lead's QRS amplitude; measured.</summary>
+    /// <summary>
+    /// Noisy when the low-frequency activity (25th percentile of |Δ| between successive 100 ms block means) reaches
+    /// this share of the lead's QRS amplitude; measured: clean synthetic lead II reaches 0.08 through its T and P waves.
+    /// </summary>
     public double NoisyLowFrequencyIndex { get; init; } = 0.1;
 
     /// <summary>
@@ -81,7 +84,10 @@ public sealed record QualitySettings
     /// <summary>Leakage below this is a near-pure sinusoid (ventricular flutter) even when it repeats (synthetic flutter 0.15–0.21); measured.</summary>
     public double SinusoidLeakage { get; init; } = 0.3;
 
-    /// <summary>Unreadable candidate when the slope index reaches this; measured against the MITDB beat budget.</summary>
+    /// <summary>
+    /// Unreadable candidate when the slope index reaches this: the level at which MITDB's expert-annotated beats in
+    /// excluded windows stay below 0.1 % (with <see cref="UnreadableMinWindows"/>); measured on MITDB and NSTDB.
+    /// </summary>
     public double UnreadableIndex { get; init; } = 0.25;
 
     /// <summary>Unreadable candidate when the low-frequency index reaches this; measured.</summary>

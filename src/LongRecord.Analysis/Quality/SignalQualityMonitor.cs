@@ -1,17 +1,18 @@
-using LongRecord.Analysis.Beats;
-
 namespace LongRecord.Analysis.Quality;
 
 /// <summary>
 /// Streaming signal-quality monitor: judges every lead in one-second windows (good, noisy, unreadable, chaotic, flat,
-/// saturated, missing) and each window as analysable or not, with a reason. Raw samples (mV, NaN where missing) show
-/// flat, saturated and missing leads; the conditioned samples (<see cref="Conditioning.EcgConditioner"/>) show noise.
-/// Noise is judged against the lead's own QRS: the quiet level of the QRS-band slope between complexes and the
-/// low-frequency activity, over the two seconds centred on the window. A window is analysable while any lead is
-/// usable. Windows are finished in order, <see cref="LatencySamples"/> behind the input; the same windows come out for
-/// any block size. Memory does not grow with the recording except for the merged stretches.
+/// saturated, missing) and each window as analysable or not, with a <see cref="QualityReason"/>. Raw samples (mV, NaN
+/// where missing) show flat, saturated and missing leads; the conditioned samples
+/// (<see cref="Conditioning.EcgConditioner"/>) show noise, judged against the lead's own QRS: the quiet level of the
+/// QRS-band slope between complexes, the low-frequency activity, and the beat-to-beat residual outside the QRS, over
+/// the two seconds around the window. A lead is unreadable only for runs of windows and never while its complexes
+/// repeat beat after beat; a window is analysable while any lead is usable; continuous narrow-band activity with no QRS
+/// on every lead is reported as chaotic, flat signal on every lead as flat — both handed on, not only excluded.
+/// Windows are finished in order, <see cref="LatencySamples"/> behind the input; the same windows come out for any
+/// block size. Memory does not grow with the recording except for the merged stretches.
 /// </summary>
-public sealed class SignalQualityMonitor
+public sealed partial class SignalQualityMonitor
 {
     /// <summary>Length of a quality window. One second holds a QRS at any rate above 60 per minute and keeps lead-off edges to a second.</summary>
     public const double WindowS = 1.0;
@@ -39,6 +40,10 @@ public sealed class SignalQualityMonitor
     private long _nextWindow;
     private bool _flushed;
 
+    /// <summary>
+    /// A monitor for one recording of <paramref name="leads"/> leads (1–16) at <paramref name="samplingRateHz"/> (at
+    /// least 50 Hz); <paramref name="settings"/> carries the rails in mV per lead and the thresholds.
+    /// </summary>
     public SignalQualityMonitor(double samplingRateHz, int leads, QualitySettings? settings = null)
     {
         if (!(samplingRateHz >= 50) || double.IsInfinity(samplingRateHz))
@@ -163,75 +168,6 @@ public sealed class SignalQualityMonitor
         var first = _finished.Count;
         _bridge.End(_finished);
         Publish(first);
-    }
-
-    /// <summary>The state of lead <paramref name="lead"/> at <paramref name="sample"/>, when that window is finished.</summary>
-    public bool TryGetLeadState(int lead, long sample, out LeadState state)
-    {
-        var list = _leadStretches[CheckLead(lead)];
-        int lo = 0, hi = list.Count - 1;
-        while (lo <= hi)
-        {
-            var mid = (lo + hi) >>> 1;
-            if (sample < list[mid].StartSample)
-            {
-                hi = mid - 1;
-            }
-            else if (sample >= list[mid].EndSample)
-            {
-                lo = mid + 1;
-            }
-            else
-            {
-                state = list[mid].State;
-                return true;
-            }
-        }
-
-        state = LeadState.Missing;
-        return false;
-    }
-
-    /// <summary>The state of lead <paramref name="lead"/> at <paramref name="sample"/>; throws when that window is not finished yet.</summary>
-    public LeadState LeadStateAt(int lead, long sample) =>
-        TryGetLeadState(lead, sample, out var s) ? s
-        : throw new ArgumentOutOfRangeException(nameof(sample), sample, $"no finished window holds sample {sample} (decided until {DecidedUntilSample})");
-
-    /// <summary>True when lead <paramref name="lead"/> is good or noisy at <paramref name="sample"/> (for down-weighting bad leads).</summary>
-    public bool IsUsable(int lead, long sample) => LeadStateAt(lead, sample).IsUsable();
-
-    /// <summary>True when any lead is usable at <paramref name="sample"/>: beats may be emitted there.</summary>
-    public bool IsAnalysableAt(long sample)
-    {
-        for (var k = 0; k < _leads; k++)
-        {
-            if (IsUsable(k, sample))
-            {
-                return true;
-            }
-        }
-
-        return false;
-    }
-
-    /// <summary>
-    /// The <c>lead_quality</c> of a beat at <paramref name="sample"/>: <see cref="LeadQuality.SingleLead"/> when only one
-    /// lead of several is usable, <see cref="LeadQuality.Good"/> when at least two leads (or the only lead) are good,
-    /// otherwise <see cref="LeadQuality.Noisy"/>.
-    /// </summary>
-    public LeadQuality BeatLeadQuality(long sample)
-    {
-        int usable = 0, good = 0;
-        for (var k = 0; k < _leads; k++)
-        {
-            var s = LeadStateAt(k, sample);
-            usable += s.IsUsable() ? 1 : 0;
-            good += s == LeadState.Good ? 1 : 0;
-        }
-
-        return _leads > 1 && usable <= 1 ? LeadQuality.SingleLead
-            : good >= Math.Min(2, _leads) ? LeadQuality.Good
-            : LeadQuality.Noisy;
     }
 
     private int CheckLead(int lead)

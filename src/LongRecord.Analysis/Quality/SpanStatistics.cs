@@ -3,7 +3,7 @@ using System.Runtime.InteropServices;
 
 namespace LongRecord.Analysis.Quality;
 
-/// <summary>Vectorised reductions over NaN-free spans for the block statistics (the order of a span's sums is fixed by the span).</summary>
+/// <summary>Vectorised reductions for the block statistics; a span's sum is taken in an order fixed by the span alone.</summary>
 internal static class SpanStatistics
 {
     public static bool HasNaN(ReadOnlySpan<float> x)
@@ -34,26 +34,23 @@ internal static class SpanStatistics
         return false;
     }
 
-    public static (double Sum, float Min, float Max) SumMinMax(ReadOnlySpan<float> x)
+    public static (float Min, float Max) MinMax(ReadOnlySpan<float> x)
     {
-        float min = float.PositiveInfinity, max = float.NegativeInfinity, sum = 0;
+        float min = float.PositiveInfinity, max = float.NegativeInfinity;
         var i = 0;
         if (Vector.IsHardwareAccelerated && x.Length >= Vector<float>.Count)
         {
             var vectors = MemoryMarshal.Cast<float, Vector<float>>(x);
-            var vs = Vector<float>.Zero;
             var vmin = new Vector<float>(float.PositiveInfinity);
             var vmax = new Vector<float>(float.NegativeInfinity);
             foreach (var v in vectors)
             {
-                vs += v;
                 vmin = Vector.Min(vmin, v);
                 vmax = Vector.Max(vmax, v);
             }
 
             for (var k = 0; k < Vector<float>.Count; k++)
             {
-                sum += vs[k];
                 min = Math.Min(min, vmin[k]);
                 max = Math.Max(max, vmax[k]);
             }
@@ -63,12 +60,11 @@ internal static class SpanStatistics
 
         for (; i < x.Length; i++)
         {
-            sum += x[i];
             min = Math.Min(min, x[i]);
             max = Math.Max(max, x[i]);
         }
 
-        return (sum, min, max);
+        return (min, max);
     }
 
     /// <summary>
