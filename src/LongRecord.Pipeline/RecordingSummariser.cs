@@ -1,4 +1,5 @@
 using LongRecord.Analysis.Beats;
+using LongRecord.Analysis.Quality;
 using LongRecord.Formats;
 using LongRecord.Formats.Wfdb;
 using LongRecord.Pipeline.Channels;
@@ -23,6 +24,7 @@ public static class RecordingSummariser
         using var folder = new OutputFolder(Path.Combine(outputRoot, input.OutputName));
         BeatsCsv.Write(folder.File("beats.csv"), analysis.Beats, analysis.ReferenceRateHz);
         BeatAnnotations.Write(folder.File($"{input.Name}.{BeatAnnotations.Annotator}"), analysis.Beats);
+        QualityCsv.Write(folder.File("quality.csv"), analysis.Quality);
         folder.Commit();
         return new RecordingSummary(input.Name, folder.FinalPath, analysis.DurationS, analysis.ReferenceRateHz, analysis.Leads, analysis.Beats.Count, analysis.BeatSource, info.HasSignal);
     }
@@ -32,7 +34,7 @@ public static class RecordingSummariser
         var channels = EcgChannelSelector.Select(reader.Info);
         var given = options.Beats is string spec ? ExternalBeats.Load(spec, reader.Info.FilePath, channels.ReferenceRateHz) : null;
         var analyser = DetectBeats(reader, channels, options.BlockSamples, cancellation, given);
-        return new BeatsResult(analyser.Beats, channels.ReferenceRateHz, reader.Info.DurationS, channels.Indices.Length, given?.Source ?? "detected");
+        return new BeatsResult(analyser.Beats, analyser.Quality, channels.ReferenceRateHz, reader.Info.DurationS, channels.Indices.Length, given?.Source ?? "detected");
     }
 
     // No signal (a header whose signal file is absent, or one that declares no signals): beats from annotations only.
@@ -49,13 +51,15 @@ public static class RecordingSummariser
             : throw new RecordingFormatException(info.FilePath, "no sampling rate to place the annotations on");
         var given = ExternalBeats.Load(spec, info.FilePath, fRef);
         var duration = Math.Max(info.DurationS, (given.LastAnnotationSample + 1) / fRef);
-        return new BeatsResult(BeatsFromAnnotations.Build(given, fRef), fRef, duration, 0, given.Source);
+        // No signal, so no verdict on it: the whole recording is one stretch, analysable as far as the annotations go.
+        var whole = new QualityStretch(0, (long)Math.Round(duration * fRef), 0, duration, true, QualityReason.Ok);
+        return new BeatsResult(BeatsFromAnnotations.Build(given, fRef), [whole], fRef, duration, 0, given.Source);
     }
 
     /// <summary>Streams the chosen channels through the beats stage.</summary>
     public static BeatAnalyser DetectBeats(IRecordingReader reader, EcgChannels channels, int blockSamples, CancellationToken cancellation = default, ExternalBeats? given = null)
     {
-        var analyser = new BeatAnalyser(channels.ReferenceRateHz, channels.Indices.Length, given?.Samples, given?.Classes);
+        var analyser = new BeatAnalyser(channels.ReferenceRateHz, channels.Indices.Length, given?.Samples, given?.Classes, SaturationRails.For(reader.Info, channels));
         var buffer = new float[channels.Indices.Length * blockSamples];
         for (long start = 0; start < channels.SampleCount; start += blockSamples)
         {
@@ -70,5 +74,5 @@ public static class RecordingSummariser
         return analyser;
     }
 
-    private sealed record BeatsResult(IReadOnlyList<Beat> Beats, double ReferenceRateHz, double DurationS, int Leads, string BeatSource);
+    private sealed record BeatsResult(IReadOnlyList<Beat> Beats, IReadOnlyList<QualityStretch> Quality, double ReferenceRateHz, double DurationS, int Leads, string BeatSource);
 }

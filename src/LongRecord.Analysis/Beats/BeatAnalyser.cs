@@ -1,5 +1,6 @@
 using LongRecord.Analysis.Beats.Classification;
 using LongRecord.Analysis.Conditioning;
+using LongRecord.Analysis.Quality;
 
 namespace LongRecord.Analysis.Beats;
 
@@ -23,8 +24,12 @@ public sealed class BeatAnalyser
     private readonly List<Beat> _beats = new();
     private readonly BeatClassifier _classifier;
     private readonly Queue<Beat> _undecided = new();
+    private readonly SignalQualityMonitor _quality;
+    private readonly Queue<Beat> _awaitingQuality = new();
+    private long _droppedUnanalysable;
     private readonly int _step;
     private readonly float[] _work;
+    private readonly float[] _rawWork;
     private readonly float[] _window;
 
     private readonly IReadOnlyList<long>? _given;
@@ -36,8 +41,10 @@ public sealed class BeatAnalyser
     /// detects. Delineation and classification still run on the signal.
     /// </param>
     /// <param name="givenClasses">The annotation file's reviewed classes for <paramref name="givenBeats"/>, kept as they are; null classifies.</param>
-    public BeatAnalyser(double samplingRateHz, int leads, IReadOnlyList<long>? givenBeats = null, IReadOnlyList<BeatClass>? givenClasses = null)
+    /// <param name="quality">Signal-quality settings, with the leads' saturation rails when the format knows them.</param>
+    public BeatAnalyser(double samplingRateHz, int leads, IReadOnlyList<long>? givenBeats = null, IReadOnlyList<BeatClass>? givenClasses = null, QualitySettings? quality = null)
     {
+        _quality = new SignalQualityMonitor(samplingRateHz, leads, quality);
         _given = givenBeats;
         _givenClasses = givenClasses;
         _fs = samplingRateHz;
@@ -56,10 +63,17 @@ public sealed class BeatAnalyser
         _window = new float[leads * (_pre + _post + 1)];
         _step = Math.Max(1, (int)Math.Round(samplingRateHz));
         _work = new float[leads * _step];
+        _rawWork = new float[leads * _step];
     }
 
-    /// <summary>Beats decided so far, in time order.</summary>
+    /// <summary>Beats decided so far, in time order; only beats in analysable signal.</summary>
     public IReadOnlyList<Beat> Beats => _beats;
+
+    /// <summary>Analysable and unanalysable stretches of the signal (rows of <c>quality.csv</c>), decided so far.</summary>
+    public IReadOnlyList<QualityStretch> Quality => _quality.Stretches;
+
+    /// <summary>Beats detected (or given) inside unanalysable stretches and therefore not emitted.</summary>
+    public long DroppedUnanalysable => _droppedUnanalysable;
 
     public double SamplingRateHz => _fs;
 
@@ -78,14 +92,20 @@ public sealed class BeatAnalyser
 
     private void ProcessStep(ReadOnlySpan<float> raw, int stride, int offset, int count)
     {
+        var rawStep = _rawWork.AsSpan(0, _leads * count);
         var conditioned = _work.AsSpan(0, _leads * count);
         for (var k = 0; k < _leads; k++)
         {
-            var lead = conditioned.Slice(k * count, count);
-            raw.Slice(k * stride + offset, count).CopyTo(lead);
-            _conditioners[k].Process(lead);
+            raw.Slice(k * stride + offset, count).CopyTo(rawStep.Slice(k * count, count));
         }
 
+        rawStep.CopyTo(conditioned);
+        for (var k = 0; k < _leads; k++)
+        {
+            _conditioners[k].Process(conditioned.Slice(k * count, count));
+        }
+
+        _quality.Process(rawStep, conditioned, count);
         _ring.Append(conditioned, count);
         if (_given is null)
         {
@@ -129,6 +149,8 @@ public sealed class BeatAnalyser
         DrainReady(final: true);
         _classifier.Flush();
         TakeClassified();
+        _quality.Flush();
+        ReleaseJudged(final: true);
     }
 
     private void DrainReady(bool final)
@@ -177,6 +199,26 @@ public sealed class BeatAnalyser
                 beat.Flags |= BeatFlags.FromAnnotation;
             }
 
+            _awaitingQuality.Enqueue(beat);
+        }
+
+        ReleaseJudged(final: false);
+    }
+
+    // A beat is kept once the quality of its second is decided, and only if that second is analysable:
+    // every row of beats.csv is a detection in signal that could be read.
+    private void ReleaseJudged(bool final)
+    {
+        while (_awaitingQuality.Count > 0 && (final || _awaitingQuality.Peek().Sample < _quality.DecidedUntilSample))
+        {
+            var beat = _awaitingQuality.Dequeue();
+            if (!_quality.IsAnalysableAt(beat.Sample))
+            {
+                _droppedUnanalysable++;
+                continue;
+            }
+
+            beat.LeadQuality = _quality.BeatLeadQuality(beat.Sample);
             _beats.Add(beat);
         }
     }

@@ -91,7 +91,7 @@ public sealed record ExternalBeats(IReadOnlyList<long> Samples, IReadOnlyList<Be
                 throw new RecordingFormatException(path, $"line {lines[i].Line}: not a beat time ('{lines[i].Text}')");
             }
 
-            var s = isSample ? (long)v : (long)Math.Round(v * referenceRateHz);
+            var s = isSample ? (long)v : (long)Math.Round(v * referenceRateHz, MidpointRounding.AwayFromZero);
             if (s <= previous)
             {
                 throw new RecordingFormatException(path, $"line {lines[i].Line}: beat times must increase");
