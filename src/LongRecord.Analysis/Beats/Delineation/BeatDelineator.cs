@@ -21,6 +21,7 @@ public sealed class BeatDelineator
     private readonly DelineationSettings _settings;
     private readonly ZeroPhaseLowPass _qrsLowPass;
     private readonly ZeroPhaseLowPass _waveLowPass;
+    private readonly ZeroPhaseLowPass _fineLowPass;
     private readonly QrsSearchSamples _qrs;
     private readonly int _locate;
     private readonly int _maxHalf;
@@ -36,6 +37,8 @@ public sealed class BeatDelineator
     private readonly float[] _tAmplitudes;
     private float[] _qrsSignal = [];
     private float[] _slope = [];
+    private float[] _fineSignal = [];
+    private float[] _fineSlope = [];
     private float[] _waveSignal = [];
     private float[] _waveSlope = [];
     private float[] _scratch = [];
@@ -59,6 +62,7 @@ public sealed class BeatDelineator
         _settings = settings ?? DelineationSettings.Default;
         _qrsLowPass = new ZeroPhaseLowPass(_settings.QrsLowPassHz, samplingRateHz);
         _waveLowPass = new ZeroPhaseLowPass(_settings.WaveLowPassHz, samplingRateHz);
+        _fineLowPass = new ZeroPhaseLowPass(_settings.QrsFineLowPassHz, samplingRateHz);
         _qrs = new QrsSearchSamples(
             Math.Max(1, Samples(_settings.QrsPeakSearchMs)),
             Math.Max(1, Samples(_settings.NotchMs)),
@@ -73,7 +77,14 @@ public sealed class BeatDelineator
             (float)_settings.NoiseSlopeMultiple,
             Samples(_settings.SustainMs),
             (float)_settings.GlobalOnFraction,
-            (float)_settings.GlobalOffFraction);
+            (float)_settings.GlobalOffFraction,
+            Math.Max(1, Samples(_settings.LevelMs)),
+            (float)_settings.AmplitudeOnFraction,
+            (float)_settings.AmplitudeOffFraction,
+            Math.Max(1, Samples(8)),
+            Samples(_settings.TailMs),
+            (float)_settings.TailFraction,
+            (float)_settings.TailReverseFraction);
         _locate = Samples(_settings.QrsLocateMs);
         _maxHalf = Samples(_settings.QrsMaxHalfMs);
         _outlier = Samples(_settings.LeadOutlierMs);
@@ -117,6 +128,9 @@ public sealed class BeatDelineator
 
     /// <summary>The QRS-band slope of lead <paramref name="k"/> for the last window (diagnostics).</summary>
     internal ReadOnlySpan<float> LastSlope(int k, int length) => _slope.AsSpan(k * length, length);
+
+    /// <summary>The QRS-band signal of lead <paramref name="k"/> for the last window (diagnostics).</summary>
+    internal ReadOnlySpan<float> LastQrsSignal(int k, int length) => _qrsSignal.AsSpan(k * length, length);
 
     /// <summary>
     /// Delineates the beat whose detector fiducial is at <paramref name="fiducial"/> inside <paramref name="window"/>:
@@ -175,6 +189,8 @@ public sealed class BeatDelineator
             var d = _slope.AsSpan(k * length, length);
             _qrsLowPass.Apply(raw, x);
             Differentiate(x, d);
+            _fineLowPass.Apply(raw, _fineSignal.AsSpan(k * length, length));
+            Differentiate(_fineSignal.AsSpan(k * length, length), _fineSlope.AsSpan(k * length, length));
         }
 
         if (usable == 0)
@@ -194,10 +210,12 @@ public sealed class BeatDelineator
             }
 
             var d = _slope.AsSpan(k * length, length);
-            QrsBoundarySearch.Find(_qrsSignal.AsSpan(k * length, length), d, centre, from, to, _qrs, NoiseSlope(d, centre), ref lead);
+            var fd = _fineSlope.AsSpan(k * length, length);
+            QrsBoundarySearch.Find(
+                _qrsSignal.AsSpan(k * length, length), d, _fineSignal.AsSpan(k * length, length), fd, centre, from, to, _qrs, NoiseSlope(d, centre, context), NoiseSlope(fd, centre, context), ref lead);
         }
 
-        var (onset, offset, confidence) = MultileadQrs.Combine(_leadQrs, (float)_settings.MinLeadSlopeFraction, (float)_settings.MinLeadSnr, _outlier);
+        var (onset, offset, confidence) = MultileadQrs.Combine(_leadQrs, (float)_settings.MinLeadSlopeFraction, (float)_settings.MinLeadSnr, (float)_settings.LeadSnrFloor, _outlier);
         var rPeak = DominantDeflection(length, onset, offset, centre);
         var width = onset >= 0 && offset > onset ? (float)((offset - onset) * 1000.0 / _fs) : float.NaN;
         if (onset < 0 || offset < 0)
@@ -388,14 +406,17 @@ public sealed class BeatDelineator
         return best;
     }
 
-    private float NoiseSlope(ReadOnlySpan<float> d, int centre)
+    private float NoiseSlope(ReadOnlySpan<float> d, int centre, in DelineationContext context)
     {
-        // A high quantile of the absolute slope outside the QRS: what the lead shows when no QRS is there.
+        // A high quantile of the absolute slope away from this beat's and the neighbouring beats' QRS: what the lead
+        // shows when no QRS is there.
         var exclude = Samples(_settings.NoiseExclusionMs);
+        var prev = context.PreviousFiducial ?? int.MinValue / 2;
+        var next = context.NextFiducial ?? int.MaxValue / 2;
         var n = 0;
         for (var i = 0; i < d.Length; i++)
         {
-            if (Math.Abs(i - centre) > exclude)
+            if (Math.Abs(i - centre) > exclude && Math.Abs(i - prev) > exclude && Math.Abs(i - next) > exclude)
             {
                 _scratch[n++] = Math.Abs(d[i]);
             }
@@ -488,6 +509,8 @@ public sealed class BeatDelineator
 
         _qrsSignal = new float[_leads * length];
         _slope = new float[_leads * length];
+        _fineSignal = new float[_leads * length];
+        _fineSlope = new float[_leads * length];
         _waveSignal = new float[_leads * length];
         _waveSlope = new float[_leads * length];
         _scratch = new float[length];

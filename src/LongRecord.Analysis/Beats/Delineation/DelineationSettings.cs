@@ -12,6 +12,9 @@ public sealed record DelineationSettings
     /// <summary>Corner of the zero-phase low-pass applied before the QRS derivative, Hz.</summary>
     public double QrsLowPassHz { get; init; } = 25;
 
+    /// <summary>Corner of the lighter zero-phase low-pass on which the QRS boundaries themselves are walked, Hz.</summary>
+    public double QrsFineLowPassHz { get; init; } = 60;
+
     /// <summary>Corner of the zero-phase low-pass applied before P- and T-wave analysis, Hz.</summary>
     public double WaveLowPassHz { get; init; } = 15;
 
@@ -56,6 +59,18 @@ public sealed record DelineationSettings
 
     public double SustainMs { get; init; } = 18;
 
+    public double AmplitudeOnFraction { get; init; } = 0.015;
+
+    public double AmplitudeOffFraction { get; init; } = 0.02;
+
+    public double LevelMs { get; init; } = 16;
+
+    public double TailMs { get; init; }
+
+    public double TailFraction { get; init; } = 0.02;
+
+    public double TailReverseFraction { get; init; } = 0.01;
+
     public double GlobalOnFraction { get; init; } = 0.015;
 
     public double GlobalOffFraction { get; init; } = 0.12;
@@ -65,7 +80,7 @@ public sealed record DelineationSettings
     public double NoiseExclusionMs { get; init; } = 120;
 
     /// <summary>Boundary thresholds never go below this multiple of the lead's noise slope.</summary>
-    public double NoiseSlopeMultiple { get; init; } = 0.5;
+    public double NoiseSlopeMultiple { get; init; } = 1;
 
     /// <summary>
     /// A lead's QRS takes part in the multilead width only when its peak slope reaches this fraction of the steepest
@@ -74,6 +89,12 @@ public sealed record DelineationSettings
     public double MinLeadSlopeFraction { get; init; } = 0.35;
 
     public double MinLeadSnr { get; init; } = 1e9;
+
+    /// <summary>
+    /// A lead whose QRS peak slope is below this multiple of its noise slope never takes part (unless it is the only
+    /// lead with boundaries).
+    /// </summary>
+    public double LeadSnrFloor { get; init; } = 4;
 
     /// <summary>A lead's boundary further than this from the other leads' is an outlier and set aside, ms.</summary>
     public double LeadOutlierMs { get; init; } = 40;

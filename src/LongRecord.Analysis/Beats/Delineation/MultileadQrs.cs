@@ -8,7 +8,7 @@ namespace LongRecord.Analysis.Beats.Delineation;
 /// </summary>
 internal static class MultileadQrs
 {
-    public static (int Onset, int Offset, float Confidence) Combine(ReadOnlySpan<LeadQrs> leads, float minSlopeFraction, float minSnr, int outlierSamples)
+    public static (int Onset, int Offset, float Confidence) Combine(ReadOnlySpan<LeadQrs> leads, float minSlopeFraction, float minSnr, float floorSnr, int outlierSamples)
     {
         var steepest = 0f;
         foreach (ref readonly var lead in leads)
@@ -25,13 +25,25 @@ internal static class MultileadQrs
         }
 
         var minSlope = minSlopeFraction * steepest;
-        var onset = Pick(leads, minSlope, minSnr, outlierSamples, earliest: true, out var onsetAgree);
-        var offset = Pick(leads, minSlope, minSnr, outlierSamples, earliest: false, out var offsetAgree);
+
+        // The SNR floor never removes every lead: the clearest one always takes part.
+        var clearest = 0f;
+        foreach (ref readonly var lead in leads)
+        {
+            if (lead.Usable && lead.PeakSlope >= minSlope)
+            {
+                clearest = Math.Max(clearest, lead.Snr);
+            }
+        }
+
+        floorSnr = Math.Min(floorSnr, clearest);
+        var onset = Pick(leads, minSlope, minSnr, floorSnr, outlierSamples, earliest: true, out var onsetAgree);
+        var offset = Pick(leads, minSlope, minSnr, floorSnr, outlierSamples, earliest: false, out var offsetAgree);
         var confidence = onset >= 0 && offset > onset ? 0.5f * (onsetAgree + offsetAgree) : 0f;
         return (onset, offset > onset ? offset : -1, confidence);
     }
 
-    private static int Pick(ReadOnlySpan<LeadQrs> leads, float minSlope, float minSnr, int outlier, bool earliest, out float agreement)
+    private static int Pick(ReadOnlySpan<LeadQrs> leads, float minSlope, float minSnr, float floorSnr, int outlier, bool earliest, out float agreement)
     {
         // Best and second-best boundary over the reliable leads.
         var best = -1;
@@ -40,7 +52,7 @@ internal static class MultileadQrs
         foreach (ref readonly var lead in leads)
         {
             var at = earliest ? lead.Onset : lead.Offset;
-            if (!lead.Usable || at < 0 || (lead.PeakSlope < minSlope && lead.Snr < minSnr))
+            if (!lead.Usable || at < 0 || (lead.PeakSlope < minSlope && lead.Snr < minSnr) || lead.Snr < floorSnr)
             {
                 continue;
             }

@@ -15,7 +15,9 @@ internal static class QrsBoundarySearch
     /// <paramref name="slope"/> (its derivative, mV/s); boundaries stay within [<paramref name="low"/>, <paramref name="high"/>].
     /// A boundary that runs into a limit is reported as not found.
     /// </summary>
-    public static void Find(ReadOnlySpan<float> x, ReadOnlySpan<float> slope, int centre, int low, int high, in QrsSearchSamples p, float noiseSlope, ref LeadQrs lead)
+    public static void Find(
+        ReadOnlySpan<float> x, ReadOnlySpan<float> slope, ReadOnlySpan<float> fineX, ReadOnlySpan<float> fineSlope,
+        int centre, int low, int high, in QrsSearchSamples p, float noiseSlope, float fineNoiseSlope, ref LeadQrs lead)
     {
         lead.Onset = -1;
         lead.Offset = -1;
@@ -53,6 +55,101 @@ internal static class QrsBoundarySearch
 
         lead.Onset = Boundary(slope, first, low, -1, Math.Max(Math.Max(Math.Abs(slope[first]) / p.OnsetDivisor, p.GlobalOn * peak), p.NoiseMultiple * noiseSlope), p.Sustain);
         lead.Offset = Boundary(slope, last, high, +1, Math.Max(Math.Max(Math.Abs(slope[last]) / p.OffsetDivisor, p.GlobalOff * peak), p.NoiseMultiple * noiseSlope), p.Sustain);
+
+        // A slow small wave right after the last limb (or before the first), ending in a turn of the signal, belongs to the
+        // QRS (a slow terminal s or initial q).
+        if (p.Tail > 0)
+        {
+            var pp = max - min;
+            if (lead.Offset >= 0)
+            {
+                lead.Offset = Tail(x, slope, last, lead.Offset, high, +1, p.Tail, p.TailFraction * pp, p.TailReverse * pp);
+            }
+
+            if (lead.Onset >= 0)
+            {
+                lead.Onset = Tail(x, slope, first, lead.Onset, low, -1, p.Tail, p.TailFraction * pp, p.TailReverse * pp);
+            }
+        }
+
+        // The amplitude test runs on the lighter low-pass, which blurs the QRS edges less.
+        x = fineX;
+
+        // A slow tail that stays within a small fraction of the QRS amplitude of the level outside it is not QRS.
+        if (lead.Onset >= 0 && p.AmplitudeOn > 0)
+        {
+            lead.Onset = Trim(x, lead.Onset, first, -1, p.LevelSamples, p.AmplitudeOn * (max - min));
+        }
+
+        if (lead.Offset >= 0 && p.AmplitudeOff > 0)
+        {
+            lead.Offset = Trim(x, lead.Offset, last, +1, p.LevelSamples, p.AmplitudeOff * (max - min));
+        }
+    }
+
+    private static int Tail(ReadOnlySpan<float> x, ReadOnlySpan<float> d, int peakAt, int boundary, int limit, int dir, int reach, float amplitude, float reverse)
+    {
+        var sign = Math.Sign(d[peakAt]);
+        var j = boundary;
+        var steps = 0;
+        while (Inside(j + dir, limit, dir) && Math.Sign(d[j + dir]) == sign && steps < reach)
+        {
+            j += dir;
+            steps++;
+        }
+
+        if (steps == 0 || steps >= reach || sign * (x[j] - x[boundary]) * dir < amplitude)
+        {
+            return boundary;
+        }
+
+        // The signal must turn back after the extremum.
+        for (var i = j + dir; Inside(i, limit, dir) && Math.Abs(i - j) <= reach; i += dir)
+        {
+            if (-sign * dir * (x[i] - x[j]) >= reverse)
+            {
+                return j;
+            }
+        }
+
+        return boundary;
+    }
+
+    // The fine derivative's own peak of the same sign close to a coarse slope peak.
+    private static int Nearby(ReadOnlySpan<float> d, int at, int sign, int reach, int low, int high)
+    {
+        var best = at;
+        for (var i = Math.Max(low + 1, at - reach); i <= Math.Min(high - 1, at + reach); i++)
+        {
+            if (sign * d[i] > sign * d[best])
+            {
+                best = i;
+            }
+        }
+
+        return best;
+    }
+
+    // Moves a boundary inwards (towards `inner`) while the signal stays within `tolerance` of the level just outside it.
+    private static int Trim(ReadOnlySpan<float> x, int boundary, int inner, int dir, int levelSamples, float tolerance)
+    {
+        // Level: the mean over the stretch just outside the boundary (dir = −1: before the onset).
+        var a = dir < 0 ? Math.Max(0, boundary - levelSamples) : boundary;
+        var b = dir < 0 ? boundary : Math.Min(x.Length - 1, boundary + levelSamples);
+        var level = 0f;
+        for (var i = a; i <= b; i++)
+        {
+            level += x[i];
+        }
+
+        level /= b - a + 1;
+        var j = boundary;
+        while (j != inner && Math.Abs(x[j - dir] - level) <= tolerance)
+        {
+            j -= dir;
+        }
+
+        return j;
     }
 
     // Walks limb by limb from the slope peak at `start` in direction `dir`; returns the slope peak of the outermost
@@ -199,4 +296,5 @@ internal static class QrsBoundarySearch
 /// <summary>The QRS search settings turned into samples for one sampling rate.</summary>
 internal readonly record struct QrsSearchSamples(
     int PeakSearch, int Notch, int QuietGap, int WaveLimb, float SignificantFraction, float WeakFraction, float SignificantAmplitude, float QuietFraction,
-    float OnsetDivisor, float OffsetDivisor, float NoiseMultiple, int Sustain, float GlobalOn, float GlobalOff);
+    float OnsetDivisor, float OffsetDivisor, float NoiseMultiple, int Sustain, float GlobalOn, float GlobalOff,
+    int LevelSamples = 1, float AmplitudeOn = 0, float AmplitudeOff = 0, int Nearby = 1, int Tail = 0, float TailFraction = 0, float TailReverse = 0);
