@@ -59,7 +59,7 @@ public sealed record DelineationSettings
 
     public double SustainMs { get; init; } = 18;
 
-    public double AmplitudeOnFraction { get; init; } = 0.015;
+    public double AmplitudeOnFraction { get; init; } = 0.0125;
 
     public double AmplitudeOffFraction { get; init; } = 0.02;
 
@@ -75,7 +75,7 @@ public sealed record DelineationSettings
 
     public double GlobalOffFraction { get; init; } = 0.12;
 
-    public double NoiseQuantile { get; init; } = 0.8;
+    public double NoiseMeanScale { get; init; } = 1.6;
 
     public double NoiseExclusionMs { get; init; } = 120;
 
@@ -121,16 +121,25 @@ public sealed record DelineationSettings
     public double PMaxHalfWidthMs { get; init; } = 240;
 
     /// <summary>P amplitude ÷ RMS activity of the rest of the window needed with no template support.</summary>
-    public double PStrictRatio { get; init; } = 3;
+    public double PStrictRatio { get; init; } = 2;
+
+    /// <summary>The activity around a P candidate is measured from this long before it to the QRS onset, ms.</summary>
+    public double PRestBeforeMs { get; init; } = 1000;
 
     /// <summary>P amplitude ÷ the largest other deflection in the window.</summary>
-    public double PPeakRatio { get; init; } = 1.5;
+    public double PPeakRatio { get; init; } = 1.2;
 
     /// <summary>Median correlation with the same stretch of the recent beats that counts as a repeating wave.</summary>
-    public double PTemplateCorrelation { get; init; } = 0.7;
+    public double PTemplateCorrelation { get; init; } = 0.5;
 
-    /// <summary>Share of the recent beats with the candidate at the same distance before the QRS (within 20 ms).</summary>
-    public double PPrAgreement { get; init; } = 0.5;
+    /// <summary>Share of the recent beats with the candidate at the same distance before the QRS (within <see cref="PPrToleranceMs"/>).</summary>
+    public double PPrAgreement { get; init; } = 0.3;
+
+    /// <summary>How many recent beats the P-wave repetition tests compare with.</summary>
+    public int PHistoryBeats { get; init; } = 8;
+
+    /// <summary>Two candidates lie at the same distance before the QRS when within this of each other, ms.</summary>
+    public double PPrToleranceMs { get; init; } = 20;
 
     /// <summary>The T peak is searched from this long after the QRS end, ms.</summary>
     public double TStDelayMs { get; init; } = 100;

@@ -6,6 +6,10 @@ internal struct LeadQrs
     public int Onset;
     public int Offset;
 
+    /// <summary>Onset and offset with the threshold crossing interpolated between samples.</summary>
+    public float OnsetAt;
+    public float OffsetAt;
+
     /// <summary>Largest absolute slope of the QRS, mV/s.</summary>
     public float PeakSlope;
 

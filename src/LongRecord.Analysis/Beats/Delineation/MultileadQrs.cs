@@ -8,7 +8,7 @@ namespace LongRecord.Analysis.Beats.Delineation;
 /// </summary>
 internal static class MultileadQrs
 {
-    public static (int Onset, int Offset, float Confidence) Combine(ReadOnlySpan<LeadQrs> leads, float minSlopeFraction, float minSnr, float floorSnr, int outlierSamples)
+    public static (float Onset, float Offset, float Confidence) Combine(ReadOnlySpan<LeadQrs> leads, float minSlopeFraction, float minSnr, float floorSnr, int outlierSamples)
     {
         var steepest = 0f;
         foreach (ref readonly var lead in leads)
@@ -21,7 +21,7 @@ internal static class MultileadQrs
 
         if (steepest <= 0)
         {
-            return (-1, -1, 0);
+            return (-1f, -1f, 0f);
         }
 
         var minSlope = minSlopeFraction * steepest;
@@ -40,18 +40,18 @@ internal static class MultileadQrs
         var onset = Pick(leads, minSlope, minSnr, floorSnr, outlierSamples, earliest: true, out var onsetAgree);
         var offset = Pick(leads, minSlope, minSnr, floorSnr, outlierSamples, earliest: false, out var offsetAgree);
         var confidence = onset >= 0 && offset > onset ? 0.5f * (onsetAgree + offsetAgree) : 0f;
-        return (onset, offset > onset ? offset : -1, confidence);
+        return (onset, offset > onset ? offset : -1f, confidence);
     }
 
-    private static int Pick(ReadOnlySpan<LeadQrs> leads, float minSlope, float minSnr, float floorSnr, int outlier, bool earliest, out float agreement)
+    private static float Pick(ReadOnlySpan<LeadQrs> leads, float minSlope, float minSnr, float floorSnr, int outlier, bool earliest, out float agreement)
     {
         // Best and second-best boundary over the reliable leads.
-        var best = -1;
-        var second = -1;
+        var best = -1f;
+        var second = -1f;
         var count = 0;
         foreach (ref readonly var lead in leads)
         {
-            var at = earliest ? lead.Onset : lead.Offset;
+            var at = earliest ? lead.OnsetAt : lead.OffsetAt;
             if (!lead.Usable || at < 0 || (lead.PeakSlope < minSlope && lead.Snr < minSnr) || lead.Snr < floorSnr)
             {
                 continue;

@@ -85,11 +85,52 @@ internal sealed class PWaveSearch
         if (at >= 0)
         {
             Describe(y, begin, end, at, baseline, ref result);
+            Judge(lead, y, begin, qrsOnset, at, ref result);
         }
 
-        Consistency(lead, y, begin, qrsOnset, at, ref result);
         Remember(lead, y, begin, qrsOnset, at, baseline);
         return result;
+    }
+
+    // A P wave: a plausible, isolated wave that repeats from beat to beat (no history yet counts as repeating). The
+    // tests run cheapest first; the shape correlation only when the others pass.
+    private void Judge(int lead, ReadOnlySpan<float> y, int begin, int qrsOnset, int at, ref LeadP result)
+    {
+        var g = _p.Gate;
+        var plausible = Math.Abs(result.Amplitude) >= g.MinAmplitude && result.HalfWidth >= g.MinHalfWidth && result.HalfWidth <= g.MaxHalfWidth;
+        var isolated = result.Ratio >= g.Ratio && result.PeakRatio >= g.PeakRatio;
+        if (!plausible || !isolated)
+        {
+            return;
+        }
+
+        var count = Math.Min(_historyCount[lead], _p.History);
+        if (count > 0)
+        {
+            var agree = 0;
+            var pr = qrsOnset - at;
+            for (var j = 0; j < count; j++)
+            {
+                if (_historyPr[lead][j] >= 0 && Math.Abs(_historyPr[lead][j] - pr) <= _p.PrTolerance)
+                {
+                    agree++;
+                }
+            }
+
+            result.PrAgreement = (float)agree / count;
+            if (result.PrAgreement < g.PrAgreement)
+            {
+                return;
+            }
+
+            result.Correlation = Correlation(lead, y, begin, qrsOnset, at, count);
+            if (result.Correlation < g.Correlation)
+            {
+                return;
+            }
+        }
+
+        result.Accepted = true;
     }
 
     private static bool WholeWave(ReadOnlySpan<float> y, int begin, int end, int at, in Line baseline)
@@ -142,7 +183,7 @@ internal sealed class PWaveSearch
         double sum = 0;
         var n = 0;
         var largest = 0f;
-        for (var i = begin; i < end; i++)
+        for (var i = Math.Max(begin, lo - _p.RestBefore); i < end; i++)
         {
             if (i >= lo - _p.Margin && i <= hi + _p.Margin)
             {
@@ -163,41 +204,58 @@ internal sealed class PWaveSearch
         result.RestLargest = largest;
     }
 
-    private void Consistency(int lead, ReadOnlySpan<float> y, int begin, int qrsOnset, int at, ref LeadP result)
+    // Median over the stored beats of the best correlation (over a small lag) between the candidate's stretch and the
+    // same stretch, relative to the QRS onset, of the stored beat.
+    private float Correlation(int lead, ReadOnlySpan<float> y, int begin, int qrsOnset, int at, int count)
     {
-        var count = Math.Min(_historyCount[lead], _p.History);
-        if (count == 0 || at < 0)
+        var windowStart = qrsOnset - _p.TemplateLength;
+
+        // Only the P window's own stretch: the QRS onset or the previous T wave would correlate in any rhythm.
+        var a = Math.Max(begin, at - _p.CorrelationHalf);
+        var b = Math.Min(qrsOnset - _p.EndGap - 1, at + _p.CorrelationHalf);
+        var n = b - a + 1;
+        if (n < 3 * _p.CorrelationStep)
         {
-            return;
+            return float.NaN;
         }
 
-        // Correlate the candidate's stretch with the same stretch (relative to the QRS onset) of each stored beat.
-        var windowStart = qrsOnset - _p.TemplateLength;
-        var a = at - _p.CorrelationHalf;
-        var b = at + _p.CorrelationHalf;
+        // The slow-wave signal is sampled every `step` samples (about 8 ms): enough for a 15 Hz band, and the cost no
+        // longer grows with the sampling rate.
+        var step = _p.CorrelationStep;
+        var m = (n + step - 1) / step;
+        float sy = 0, syy = 0;
+        for (var i = a; i <= b; i += step)
+        {
+            sy += y[i];
+            syy += y[i] * y[i];
+        }
+
+        var varY = syy - sy * sy / m;
         var used = 0;
-        var agree = 0;
-        var pr = qrsOnset - at;
         for (var j = 0; j < count; j++)
         {
             var stored = _history[lead].AsSpan(j * _p.TemplateLength, _p.TemplateLength);
             var validFrom = _historyStart[lead][j];
-            if (_historyPr[lead][j] >= 0 && Math.Abs(_historyPr[lead][j] - pr) <= _p.PrTolerance)
-            {
-                agree++;
-            }
-
             var bestR = float.NaN;
-            for (var lag = -_p.MaxLag; lag <= _p.MaxLag; lag++)
+            for (var lag = -_p.MaxLag; lag <= _p.MaxLag; lag += step)
             {
                 var sa = a - windowStart + lag;
-                var sb = b - windowStart + lag;
-                if (a < begin || sa < validFrom || sb >= _p.TemplateLength || b >= y.Length)
+                if (sa < validFrom || sa + n > _p.TemplateLength)
                 {
                     continue;
                 }
 
-                var r = Pearson(y.Slice(a, b - a + 1), stored.Slice(sa, b - a + 1));
+                float sx = 0, sxx = 0, sxy = 0;
+                for (int i = a, t = sa; i <= b; i += step, t += step)
+                {
+                    var u = stored[t];
+                    sx += u;
+                    sxx += u * u;
+                    sxy += u * y[i];
+                }
+
+                var den = MathF.Sqrt(Math.Max(0, sxx - sx * sx / m) * Math.Max(0, varY));
+                var r = den > 0 ? (sxy - sx * sy / m) / den : 0f;
                 if (float.IsNaN(bestR) || r > bestR)
                 {
                     bestR = r;
@@ -210,8 +268,7 @@ internal sealed class PWaveSearch
             }
         }
 
-        result.Correlation = used > 0 ? Selection.Median(_correlations.AsSpan(0, used)) : float.NaN;
-        result.PrAgreement = (float)agree / count;
+        return used > 0 ? Selection.Median(_correlations.AsSpan(0, used)) : float.NaN;
     }
 
     private void Remember(int lead, ReadOnlySpan<float> y, int begin, int qrsOnset, int at, in Line baseline)
@@ -229,26 +286,6 @@ internal sealed class PWaveSearch
         _historyStart[lead][slot] = validFrom;
         _historyPr[lead][slot] = at >= 0 ? qrsOnset - at : -1;
         _historyCount[lead]++;
-    }
-
-    private static float Pearson(ReadOnlySpan<float> x, ReadOnlySpan<float> y)
-    {
-        double sx = 0, sy = 0, sxx = 0, syy = 0, sxy = 0;
-        var n = x.Length;
-        for (var i = 0; i < n; i++)
-        {
-            double u = x[i];
-            double v = y[i];
-            sx += u;
-            sy += v;
-            sxx += u * u;
-            syy += v * v;
-            sxy += u * v;
-        }
-
-        var cov = sxy - sx * sy / n;
-        var den = Math.Sqrt(Math.Max(0, sxx - sx * sx / n) * Math.Max(0, syy - sy * sy / n));
-        return den > 0 ? (float)(cov / den) : 0f;
     }
 
     private static float MedianOf(ReadOnlySpan<float> values, Span<float> scratch)
@@ -291,4 +328,8 @@ internal struct LeadP
 /// <summary>P-wave settings in samples for one sampling rate.</summary>
 internal readonly record struct PWaveSamples(
     int Window, int EndGap, int MinWindow, int Edge, int PeakEarliest, int PeakLatest, int Margin,
-    int TemplateLength, int History, int CorrelationHalf, int MaxLag, int PrTolerance);
+    int TemplateLength, int History, int RestBefore, int CorrelationHalf, int MaxLag, int PrTolerance, PWaveGate Gate, int CorrelationStep = 1);
+
+/// <summary>The P-wave decision thresholds (amplitude in mV, widths in samples).</summary>
+internal readonly record struct PWaveGate(
+    float MinAmplitude, int MinHalfWidth, int MaxHalfWidth, float Ratio, float PeakRatio, float PrAgreement, float Correlation);

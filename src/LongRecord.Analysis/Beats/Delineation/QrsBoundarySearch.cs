@@ -16,8 +16,8 @@ internal static class QrsBoundarySearch
     /// A boundary that runs into a limit is reported as not found.
     /// </summary>
     public static void Find(
-        ReadOnlySpan<float> x, ReadOnlySpan<float> slope, ReadOnlySpan<float> fineX, ReadOnlySpan<float> fineSlope,
-        int centre, int low, int high, in QrsSearchSamples p, float noiseSlope, float fineNoiseSlope, ref LeadQrs lead)
+        ReadOnlySpan<float> x, ReadOnlySpan<float> slope, ReadOnlySpan<float> fineX,
+        int centre, int low, int high, in QrsSearchSamples p, float noiseSlope, ref LeadQrs lead)
     {
         lead.Onset = -1;
         lead.Offset = -1;
@@ -53,8 +53,12 @@ internal static class QrsBoundarySearch
         var first = Extend(x, slope, peakAt, low, -1, sig);
         var last = Extend(x, slope, peakAt, high, +1, sig);
 
-        lead.Onset = Boundary(slope, first, low, -1, Math.Max(Math.Max(Math.Abs(slope[first]) / p.OnsetDivisor, p.GlobalOn * peak), p.NoiseMultiple * noiseSlope), p.Sustain);
-        lead.Offset = Boundary(slope, last, high, +1, Math.Max(Math.Max(Math.Abs(slope[last]) / p.OffsetDivisor, p.GlobalOff * peak), p.NoiseMultiple * noiseSlope), p.Sustain);
+        var onThreshold = Math.Max(Math.Max(Math.Abs(slope[first]) / p.OnsetDivisor, p.GlobalOn * peak), p.NoiseMultiple * noiseSlope);
+        var offThreshold = Math.Max(Math.Max(Math.Abs(slope[last]) / p.OffsetDivisor, p.GlobalOff * peak), p.NoiseMultiple * noiseSlope);
+        lead.Onset = Boundary(slope, first, low, -1, onThreshold, p.Sustain);
+        lead.Offset = Boundary(slope, last, high, +1, offThreshold, p.Sustain);
+        lead.OnsetAt = lead.Onset >= 0 ? Crossing(slope, lead.Onset, first, -1, onThreshold) : -1;
+        lead.OffsetAt = lead.Offset >= 0 ? Crossing(slope, lead.Offset, last, +1, offThreshold) : -1;
 
         // A slow small wave right after the last limb (or before the first), ending in a turn of the signal, belongs to the
         // QRS (a slow terminal s or initial q).
@@ -78,12 +82,14 @@ internal static class QrsBoundarySearch
         // A slow tail that stays within a small fraction of the QRS amplitude of the level outside it is not QRS.
         if (lead.Onset >= 0 && p.AmplitudeOn > 0)
         {
-            lead.Onset = Trim(x, lead.Onset, first, -1, p.LevelSamples, p.AmplitudeOn * (max - min));
+            lead.OnsetAt = Trim(x, lead.Onset, first, -1, p.LevelSamples, p.AmplitudeOn * (max - min), lead.OnsetAt);
+            lead.Onset = (int)Math.Round(lead.OnsetAt);
         }
 
         if (lead.Offset >= 0 && p.AmplitudeOff > 0)
         {
-            lead.Offset = Trim(x, lead.Offset, last, +1, p.LevelSamples, p.AmplitudeOff * (max - min));
+            lead.OffsetAt = Trim(x, lead.Offset, last, +1, p.LevelSamples, p.AmplitudeOff * (max - min), lead.OffsetAt);
+            lead.Offset = (int)Math.Round(lead.OffsetAt);
         }
     }
 
@@ -131,7 +137,7 @@ internal static class QrsBoundarySearch
     }
 
     // Moves a boundary inwards (towards `inner`) while the signal stays within `tolerance` of the level just outside it.
-    private static int Trim(ReadOnlySpan<float> x, int boundary, int inner, int dir, int levelSamples, float tolerance)
+    private static float Trim(ReadOnlySpan<float> x, int boundary, int inner, int dir, int levelSamples, float tolerance, float position)
     {
         // Level: the mean over the stretch just outside the boundary (dir = −1: before the onset).
         var a = dir < 0 ? Math.Max(0, boundary - levelSamples) : boundary;
@@ -149,7 +155,30 @@ internal static class QrsBoundarySearch
             j -= dir;
         }
 
-        return j;
+        if (j == boundary)
+        {
+            return position;
+        }
+
+        // Between j (within the tolerance) and its inner neighbour (beyond it).
+        var within = Math.Abs(x[j] - level);
+        var beyond = Math.Abs(x[j - dir] - level);
+        var f = j != inner && beyond > within ? Math.Clamp((tolerance - within) / (beyond - within), 0f, 1f) : 0f;
+        return j - dir * f;
+    }
+
+    // Where |d| crosses the threshold between the boundary sample (at or under it) and its inner neighbour.
+    private static float Crossing(ReadOnlySpan<float> d, int boundary, int inner, int dir, float threshold)
+    {
+        if (boundary == inner)
+        {
+            return boundary;
+        }
+
+        var a = Math.Abs(d[boundary]);
+        var b = Math.Abs(d[boundary - dir]);
+        var f = b > a ? Math.Clamp((threshold - a) / (b - a), 0f, 1f) : 0f;
+        return boundary - dir * f;
     }
 
     // Walks limb by limb from the slope peak at `start` in direction `dir`; returns the slope peak of the outermost
