@@ -8,7 +8,7 @@ namespace LongRecord.Analysis.Beats.Delineation;
 /// </summary>
 internal static class MultileadQrs
 {
-    public static (float Onset, float Offset, float Confidence) Combine(ReadOnlySpan<LeadQrs> leads, float minSlopeFraction, float minSnr, float floorSnr, int outlierSamples)
+    public static (float Onset, float Offset, float Confidence) Combine(ReadOnlySpan<LeadQrs> leads, float minSlopeFraction, float floorSnr, int outlierSamples)
     {
         var steepest = 0f;
         foreach (ref readonly var lead in leads)
@@ -37,13 +37,13 @@ internal static class MultileadQrs
         }
 
         floorSnr = Math.Min(floorSnr, clearest);
-        var onset = Pick(leads, minSlope, minSnr, floorSnr, outlierSamples, earliest: true, out var onsetAgree);
-        var offset = Pick(leads, minSlope, minSnr, floorSnr, outlierSamples, earliest: false, out var offsetAgree);
+        var onset = Pick(leads, minSlope, floorSnr, outlierSamples, earliest: true, out var onsetAgree);
+        var offset = Pick(leads, minSlope, floorSnr, outlierSamples, earliest: false, out var offsetAgree);
         var confidence = onset >= 0 && offset > onset ? 0.5f * (onsetAgree + offsetAgree) : 0f;
         return (onset, offset > onset ? offset : -1f, confidence);
     }
 
-    private static float Pick(ReadOnlySpan<LeadQrs> leads, float minSlope, float minSnr, float floorSnr, int outlier, bool earliest, out float agreement)
+    private static float Pick(ReadOnlySpan<LeadQrs> leads, float minSlope, float floorSnr, int outlier, bool earliest, out float agreement)
     {
         // Best and second-best boundary over the reliable leads.
         var best = -1f;
@@ -52,7 +52,7 @@ internal static class MultileadQrs
         foreach (ref readonly var lead in leads)
         {
             var at = earliest ? lead.OnsetAt : lead.OffsetAt;
-            if (!lead.Usable || at < 0 || (lead.PeakSlope < minSlope && lead.Snr < minSnr) || lead.Snr < floorSnr)
+            if (!lead.Usable || at < 0 || lead.PeakSlope < minSlope || lead.Snr < floorSnr)
             {
                 continue;
             }

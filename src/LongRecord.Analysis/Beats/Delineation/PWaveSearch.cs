@@ -183,7 +183,7 @@ internal sealed class PWaveSearch
         double sum = 0;
         var n = 0;
         var largest = 0f;
-        for (var i = Math.Max(begin, lo - _p.RestBefore); i < end; i++)
+        for (var i = begin; i < end; i++)
         {
             if (i >= lo - _p.Margin && i <= hi + _p.Margin)
             {
@@ -328,7 +328,7 @@ internal struct LeadP
 /// <summary>P-wave settings in samples for one sampling rate.</summary>
 internal readonly record struct PWaveSamples(
     int Window, int EndGap, int MinWindow, int Edge, int PeakEarliest, int PeakLatest, int Margin,
-    int TemplateLength, int History, int RestBefore, int CorrelationHalf, int MaxLag, int PrTolerance, PWaveGate Gate, int CorrelationStep = 1);
+    int TemplateLength, int History, int CorrelationHalf, int MaxLag, int PrTolerance, PWaveGate Gate, int CorrelationStep = 1);
 
 /// <summary>The P-wave decision thresholds (amplitude in mV, widths in samples).</summary>
 internal readonly record struct PWaveGate(

@@ -60,22 +60,6 @@ internal static class QrsBoundarySearch
         lead.OnsetAt = lead.Onset >= 0 ? Crossing(slope, lead.Onset, first, -1, onThreshold) : -1;
         lead.OffsetAt = lead.Offset >= 0 ? Crossing(slope, lead.Offset, last, +1, offThreshold) : -1;
 
-        // A slow small wave right after the last limb (or before the first), ending in a turn of the signal, belongs to the
-        // QRS (a slow terminal s or initial q).
-        if (p.Tail > 0)
-        {
-            var pp = max - min;
-            if (lead.Offset >= 0)
-            {
-                lead.Offset = Tail(x, slope, last, lead.Offset, high, +1, p.Tail, p.TailFraction * pp, p.TailReverse * pp);
-            }
-
-            if (lead.Onset >= 0)
-            {
-                lead.Onset = Tail(x, slope, first, lead.Onset, low, -1, p.Tail, p.TailFraction * pp, p.TailReverse * pp);
-            }
-        }
-
         // The amplitude test runs on the lighter low-pass, which blurs the QRS edges less.
         x = fineX;
 
@@ -91,49 +75,6 @@ internal static class QrsBoundarySearch
             lead.OffsetAt = Trim(x, lead.Offset, last, +1, p.LevelSamples, p.AmplitudeOff * (max - min), lead.OffsetAt);
             lead.Offset = (int)Math.Round(lead.OffsetAt);
         }
-    }
-
-    private static int Tail(ReadOnlySpan<float> x, ReadOnlySpan<float> d, int peakAt, int boundary, int limit, int dir, int reach, float amplitude, float reverse)
-    {
-        var sign = Math.Sign(d[peakAt]);
-        var j = boundary;
-        var steps = 0;
-        while (Inside(j + dir, limit, dir) && Math.Sign(d[j + dir]) == sign && steps < reach)
-        {
-            j += dir;
-            steps++;
-        }
-
-        if (steps == 0 || steps >= reach || sign * (x[j] - x[boundary]) * dir < amplitude)
-        {
-            return boundary;
-        }
-
-        // The signal must turn back after the extremum.
-        for (var i = j + dir; Inside(i, limit, dir) && Math.Abs(i - j) <= reach; i += dir)
-        {
-            if (-sign * dir * (x[i] - x[j]) >= reverse)
-            {
-                return j;
-            }
-        }
-
-        return boundary;
-    }
-
-    // The fine derivative's own peak of the same sign close to a coarse slope peak.
-    private static int Nearby(ReadOnlySpan<float> d, int at, int sign, int reach, int low, int high)
-    {
-        var best = at;
-        for (var i = Math.Max(low + 1, at - reach); i <= Math.Min(high - 1, at + reach); i++)
-        {
-            if (sign * d[i] > sign * d[best])
-            {
-                best = i;
-            }
-        }
-
-        return best;
     }
 
     // Moves a boundary inwards (towards `inner`) while the signal stays within `tolerance` of the level just outside it.
@@ -326,4 +267,4 @@ internal static class QrsBoundarySearch
 internal readonly record struct QrsSearchSamples(
     int PeakSearch, int Notch, int QuietGap, int WaveLimb, float SignificantFraction, float WeakFraction, float SignificantAmplitude, float QuietFraction,
     float OnsetDivisor, float OffsetDivisor, float NoiseMultiple, int Sustain, float GlobalOn, float GlobalOff,
-    int LevelSamples = 1, float AmplitudeOn = 0, float AmplitudeOff = 0, int Nearby = 1, int Tail = 0, float TailFraction = 0, float TailReverse = 0);
+    int LevelSamples = 1, float AmplitudeOn = 0, float AmplitudeOff = 0);
