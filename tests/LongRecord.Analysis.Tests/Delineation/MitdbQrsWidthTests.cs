@@ -29,7 +29,7 @@ public sealed class MitdbQrsWidthTests(ITestOutputHelper output)
             var normal = Widths(run, c => c == WfdbAnnotationCode.Normal, out var normalCount);
             var conductionLabels = run.Beats.Count(b => b.Code is WfdbAnnotationCode.LeftBundleBranchBlock or WfdbAnnotationCode.RightBundleBranchBlock
                 or WfdbAnnotationCode.Paced or WfdbAnnotationCode.FusionPacedNormal);
-            var line = Inv($"{run.Name}: N {normalCount} beats median {Median(normal):F0} ms; L/R {bbbCount} beats median {Median(bbb):F0} ms; L/R/paced labels {conductionLabels}");
+            var line = Inv($"{run.Name}: N {normalCount} beats median {Median(normal):F0} ms ({normalCount - normal.Count} without width); L/R {bbbCount} beats median {Median(bbb):F0} ms ({bbbCount - bbb.Count} without width); L/R/paced labels {conductionLabels}");
             lock (failures)
             {
                 lines[i] = line;

@@ -11,7 +11,11 @@ namespace LongRecord.Analysis.Beats.Delineation;
 /// <param name="PWave">1 when a P wave was found in the PR window, 0 when it was looked for and not found, −1 when not judged.</param>
 /// <param name="PPeak">The P wave's peak (its largest deflection from the local baseline), or −1.</param>
 /// <param name="TEnd">T-wave end, or −1 when the T wave could not be delimited.</param>
-/// <param name="Confidence">0 to 1: how far the QRS boundaries can be trusted (lead agreement and signal-to-noise).</param>
+/// <param name="Confidence">
+/// How far the QRS boundaries rest on more than one lead (mean over onset and offset): 1 for two or more reliable leads,
+/// 0.75 when one of three or more was set aside as an outlier, 0.5 for one lead only or two leads that disagree by more
+/// than <see cref="DelineationSettings.LeadOutlierMs"/>, 0 when not found.
+/// </param>
 public readonly record struct BeatDelineation(int QrsOnset, int QrsOffset, float QrsMs, int RPeak, sbyte PWave, int PPeak, int TEnd, float Confidence)
 {
     /// <summary>Nothing found (no usable lead, or no QRS near the fiducial).</summary>

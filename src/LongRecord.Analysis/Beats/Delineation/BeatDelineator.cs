@@ -181,19 +181,44 @@ public sealed partial class BeatDelineator
             }
 
             usable++;
-
-            // The QRS band and the slow-wave band of the lead in one pass pair (independent recursions overlap).
-            var x = _qrsSignal.AsSpan(k * length, length);
-            var w = _waveSignal.AsSpan(k * length, length);
-            raw.CopyTo(x);
-            raw.CopyTo(w);
-            _qrsLowPass.ApplyPair(x, _waveLowPass, w);
-            Differentiate(x, _slope.AsSpan(k * length, length));
+            raw.CopyTo(_qrsSignal.AsSpan(k * length, length));
+            raw.CopyTo(_waveSignal.AsSpan(k * length, length));
         }
 
         if (usable == 0)
         {
             return BeatDelineation.None;
+        }
+
+        // The QRS band and the slow-wave band of every lead; independent recursions run side by side so the
+        // processor overlaps them (two leads: four at once).
+        for (var k = 0; k < _leads; k++)
+        {
+            if (!_leadQrs[k].Usable)
+            {
+                continue;
+            }
+
+            var x = _qrsSignal.AsSpan(k * length, length);
+            var w = _waveSignal.AsSpan(k * length, length);
+            var m = k + 1;
+            while (m < _leads && !_leadQrs[m].Usable)
+            {
+                m++;
+            }
+
+            if (m < _leads)
+            {
+                _qrsLowPass.ApplyFour(x, _waveLowPass, w, _qrsSignal.AsSpan(m * length, length), _waveSignal.AsSpan(m * length, length));
+                Differentiate(x, _slope.AsSpan(k * length, length));
+                Differentiate(_qrsSignal.AsSpan(m * length, length), _slope.AsSpan(m * length, length));
+                k = m;
+            }
+            else
+            {
+                _qrsLowPass.ApplyPair(x, _waveLowPass, w);
+                Differentiate(x, _slope.AsSpan(k * length, length));
+            }
         }
 
         var centre = LocateQrs(length, fiducial, low, high);

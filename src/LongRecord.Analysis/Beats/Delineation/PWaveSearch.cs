@@ -35,9 +35,6 @@ internal sealed class PWaveSearch
         _correlations = new float[p.History];
     }
 
-    /// <summary>Forgets the beat history (after a gap in the beats handed in).</summary>
-    public void Reset() => Array.Clear(_historyCount);
-
     /// <summary>
     /// Measures lead <paramref name="lead"/>: <paramref name="y"/> is the slow-wave signal of the window,
     /// <paramref name="start"/> the first sample the P window may use (after the previous T wave), <paramref name="qrsOnset"/>
