@@ -18,7 +18,7 @@ public static class BeatsFromAnnotations
         {
             for (var i = 0; i < given.Samples.Count; i++)
             {
-                beats.Add(Unmeasured(given.Samples[i], classes[i], BeatFlags.FromAnnotation));
+                beats.Add(Unmeasured(given.Samples[i], classes[i], BeatFlags.FromAnnotation | BeatFlags.Labelled));
             }
 
             return beats;

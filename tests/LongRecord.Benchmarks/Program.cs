@@ -58,6 +58,7 @@ public static class Program
             fastest = Math.Min(fastest, sw.Elapsed.TotalSeconds);
         }
 
+        Console.WriteLine("  stages of the last run: " + BeatsBenchmarks.LastTimings);
         var n = 2 * 2 * 3600 * 250.0;
         Console.WriteLine(FormattableString.Invariant($"benchmark beats stage, 2 h two-lead 250 Hz demo: {n / fastest / 1e6:F1} M samples/s = {fastest * 12:F2} s per 24 h (best of 3, one thread)"));
     }

@@ -58,4 +58,7 @@ public enum BeatFlags : byte
 
     /// <summary>Premature against the local rhythm.</summary>
     Premature = 8,
+
+    /// <summary>The class is a reviewed annotation's label, kept as given.</summary>
+    Labelled = 16,
 }

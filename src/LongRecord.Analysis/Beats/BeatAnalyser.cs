@@ -1,4 +1,6 @@
+using System.Diagnostics;
 using LongRecord.Analysis.Beats.Classification;
+using LongRecord.Analysis.Beats.Delineation;
 using LongRecord.Analysis.Conditioning;
 using LongRecord.Analysis.Quality;
 
@@ -21,13 +23,18 @@ public sealed class BeatAnalyser
     private readonly int _post;
     private readonly List<long> _detections = new();
     private readonly Queue<long> _waiting = new();
+    private readonly Queue<BeatClass> _waitingClasses = new();
+    private long _lastSample = -1;
     private readonly List<Beat> _beats = new();
     private readonly BeatClassifier _classifier;
+    private readonly BeatDelineator _delineator;
     private readonly Queue<Beat> _undecided = new();
     private readonly SignalQualityMonitor _quality;
     private readonly Queue<Beat> _awaitingQuality = new();
     private long _droppedUnanalysable;
     private readonly int _step;
+    private long _samples;
+    private long _previousFiducial = -1;
     private readonly float[] _work;
     private readonly float[] _rawWork;
     private readonly float[] _window;
@@ -57,6 +64,7 @@ public sealed class BeatAnalyser
 
         _detector = new QrsDetector(samplingRateHz, leads);
         _classifier = new BeatClassifier(samplingRateHz, leads);
+        _delineator = new BeatDelineator(samplingRateHz, leads);
         _pre = (int)Math.Round(BeatWindow.PreS * samplingRateHz);
         _post = (int)Math.Round(BeatWindow.PostS * samplingRateHz);
         _ring = new SignalRing(leads, (int)Math.Ceiling(BeatWindow.RingS * samplingRateHz));
@@ -72,6 +80,9 @@ public sealed class BeatAnalyser
     /// <summary>Analysable and unanalysable stretches of the signal (rows of <c>quality.csv</c>), decided so far.</summary>
     public IReadOnlyList<QualityStretch> Quality => _quality.Stretches;
 
+    /// <summary>Time spent in each stage so far (for <c>--timings</c> and the benchmarks).</summary>
+    public BeatStageTimings Timings { get; } = new();
+
     /// <summary>Beats detected (or given) inside unanalysable stretches and therefore not emitted.</summary>
     public long DroppedUnanalysable => _droppedUnanalysable;
 
@@ -80,13 +91,14 @@ public sealed class BeatAnalyser
     /// <summary>Feeds <paramref name="count"/> samples of every lead, lead-major (lead k at k × count), in mV.</summary>
     public void Process(ReadOnlySpan<float> raw, int count)
     {
-        // In steps of at most one second, so that every beat's window is taken before the ring overwrites it,
-        // whatever the caller's block size.
+        // In steps of one second aligned to the recording's start, so that every beat's window is taken before the
+        // ring overwrites it and every decision happens at the same sample whatever the caller's block size.
         for (var done = 0; done < count;)
         {
-            var step = Math.Min(_step, count - done);
+            var step = (int)Math.Min(_step - (_samples % _step), count - done);
             ProcessStep(raw, count, done, step);
             done += step;
+            _samples += step;
         }
     }
 
@@ -99,17 +111,23 @@ public sealed class BeatAnalyser
             raw.Slice(k * stride + offset, count).CopyTo(rawStep.Slice(k * count, count));
         }
 
+        var t0 = Stopwatch.GetTimestamp();
         rawStep.CopyTo(conditioned);
         for (var k = 0; k < _leads; k++)
         {
             _conditioners[k].Process(conditioned.Slice(k * count, count));
         }
 
+        var t1 = Stopwatch.GetTimestamp();
         _quality.Process(rawStep, conditioned, count);
+        var t2 = Stopwatch.GetTimestamp();
+        Timings.Conditioning += t1 - t0;
+        Timings.Quality += t2 - t1;
         _ring.Append(conditioned, count);
         if (_given is null)
         {
             _detector.Process(conditioned, count);
+            Timings.Detection += Stopwatch.GetTimestamp() - t2;
             _detector.TakeDetections(_detections);
             foreach (var d in _detections)
             {
@@ -122,11 +140,21 @@ public sealed class BeatAnalyser
         {
             while (_nextGiven < _given.Count && _given[_nextGiven] < _ring.End)
             {
+                if (_givenClasses is not null)
+                {
+                    _waitingClasses.Enqueue(_givenClasses[_nextGiven]);
+                }
+
                 _waiting.Enqueue(_given[_nextGiven++]);
             }
         }
 
-        DrainReady(final: false);
+        // Beats are taken only at whole steps of the recording, never at the caller's block boundaries, so what each
+        // beat's delineation can see of its neighbours never depends on the block size.
+        if ((_samples + count) % _step == 0)
+        {
+            DrainReady(final: false);
+        }
     }
 
     /// <summary>Ends the stream: every remaining beat is decided.</summary>
@@ -161,24 +189,58 @@ public sealed class BeatAnalyser
             var (first, length) = _ring.CopyWindow(fiducial - _pre, _pre + _post + 1, _window);
             var window = _window.AsSpan(0, _leads * length);
             var at = (int)(fiducial - first);
+            int? previous = _previousFiducial >= first ? (int)(_previousFiducial - first) : null;
+            int? next = _waiting.Count > 0 && _waiting.Peek() < first + length ? (int)(_waiting.Peek() - first) : null;
+            var t0 = Stopwatch.GetTimestamp();
+            var d = _delineator.Delineate(window, length, at, new DelineationContext(previous, next, 0));
+            var t1 = Stopwatch.GetTimestamp();
+            Timings.Delineation += t1 - t0;
+            _previousFiducial = fiducial;
+
+            // The beat's point in time is the dominant deflection of its QRS where delineation found one (given beats
+            // keep the time the annotation file gives).
+            var r = d.RPeak >= 0 && _given is null && first + d.RPeak > _lastSample ? d.RPeak : at;
+            if (first + r <= _lastSample)
+            {
+                // Two detections that delineation places on one complex: the second is not a beat.
+                if (_givenClasses is not null)
+                {
+                    _waitingClasses.Dequeue();
+                }
+
+                continue;
+            }
+
+            _lastSample = first + r;
             var beat = new Beat
             {
-                Sample = fiducial,
-                QrsOnOffset = Beat.Unknown,
-                QrsOffOffset = Beat.Unknown,
-                PPeakOffset = Beat.Unknown,
-                TEndOffset = Beat.Unknown,
-                QrsMs = float.NaN,
+                Sample = first + r,
+                QrsOnOffset = Offset(d.QrsOnset, r),
+                QrsOffOffset = Offset(d.QrsOffset, r),
+                PPeakOffset = Offset(d.PPeak, r),
+                TEndOffset = Offset(d.TEnd, r),
+                QrsMs = d.HasQrsBounds ? d.QrsMs : float.NaN,
                 Template = -1,
                 Class = BeatClass.Q,
-                PWave = -1,
+                PWave = d.PWave,
                 LeadQuality = LeadQuality.Good,
+                Flags = _given is null ? BeatFlags.None : BeatFlags.FromAnnotation,
             };
-            _classifier.Add(fiducial, window, length, at, new BeatMeasurements(beat.QrsMs, beat.PWave));
+            if (_givenClasses is not null)
+            {
+                // Reviewed labels are kept; the classifier still sees the beat for its templates and rhythm.
+                beat.Class = _waitingClasses.Dequeue();
+                beat.Flags |= BeatFlags.Labelled;
+            }
+
+            _classifier.Add(beat.Sample, window, length, r, new BeatMeasurements(beat.QrsMs, beat.PWave));
+            Timings.Classification += Stopwatch.GetTimestamp() - t1;
             _undecided.Enqueue(beat);
             TakeClassified();
         }
     }
+
+    private static short Offset(int index, int reference) => index < 0 ? Beat.Unknown : (short)Math.Clamp(index - reference, short.MinValue + 1, short.MaxValue);
 
     // The classifier decides a beat once the next one is known; pair its answers with the beats waiting for them.
     private void TakeClassified()
@@ -191,13 +253,13 @@ public sealed class BeatAnalyser
                 throw new InvalidOperationException($"classifier answered for sample {c.Sample}, expected {beat.Sample}");
             }
 
-            beat.Class = _givenClasses is null ? c.Class : _givenClasses[_beats.Count];
-            beat.Template = c.Template;
-            beat.Flags |= _givenClasses is null ? c.Flags : BeatFlags.FromAnnotation;
-            if (_given is not null)
+            if ((beat.Flags & BeatFlags.Labelled) == 0)
             {
-                beat.Flags |= BeatFlags.FromAnnotation;
+                beat.Class = c.Class;
+                beat.Flags |= c.Flags;
             }
+
+            beat.Template = c.Template;
 
             _awaitingQuality.Enqueue(beat);
         }

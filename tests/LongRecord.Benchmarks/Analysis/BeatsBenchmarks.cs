@@ -20,10 +20,14 @@ public class BeatsBenchmarks
     [Benchmark]
     public int Beats24h() => Run(_edf);
 
+    public static LongRecord.Analysis.Beats.BeatStageTimings? LastTimings { get; private set; }
+
     public static int Run(string path)
     {
         using var reader = RecordingOpener.Open(path);
         var channels = EcgChannelSelector.Select(reader.Info);
-        return RecordingSummariser.DetectBeats(reader, channels, 1 << 16).Beats.Count;
+        var analyser = RecordingSummariser.DetectBeats(reader, channels, 1 << 16);
+        LastTimings = analyser.Timings;
+        return analyser.Beats.Count;
     }
 }

@@ -23,5 +23,5 @@ public sealed class BlockSizeInvarianceTests
     }
 
     private static string Describe(LongRecord.Analysis.Beats.Beat b) =>
-        $"{b.Sample} {b.Class} t{b.Template} {b.Flags} on{b.QrsOnOffset} off{b.QrsOffOffset} {b.QrsMs} p{b.PWave} {b.LeadQuality}";
+        $"{b.Sample} {b.Class} t{b.Template} {b.Flags} on{b.QrsOnOffset} off{b.QrsOffOffset} {b.QrsMs:R} p{b.PWave} pp{b.PPeakOffset} te{b.TEndOffset} {b.LeadQuality}";
 }
