@@ -1,0 +1,130 @@
+namespace LongRecord.Analysis.Beats.Classification;
+
+/// <summary>
+/// Streaming beat classifier (EC57 classes N, S, V, F, Q) for one recording. Beats arrive in time order with their
+/// conditioned signal window; each beat's class is decided when the next beat arrives (the compensatory pause needs
+/// the following RR), or at <see cref="Flush"/>. Memory is fixed: a small set of morphology templates and the last
+/// few RRs. Nothing is learned from annotated data: templates are built from the recording itself.
+/// </summary>
+public sealed class BeatClassifier
+{
+    private readonly double _fs;
+    private readonly ClassificationSettings _settings;
+    private readonly ShapeExtractor _extractor;
+    private readonly TemplateSet _templates;
+    private readonly RhythmContext _rhythm;
+    private readonly BeatShape _shape;
+    private readonly Queue<ClassifiedBeat> _decided = new();
+    private readonly BeatDecision _decision;
+
+    private Pending? _pending;
+    private long _lastSample = -1;
+
+    public BeatClassifier(double samplingRateHz, int leads, ClassificationSettings? settings = null)
+    {
+        if (samplingRateHz <= 0 || leads <= 0)
+        {
+            throw new ArgumentOutOfRangeException(nameof(samplingRateHz), "sampling rate and lead count must be positive");
+        }
+
+        _fs = samplingRateHz;
+        _settings = settings ?? ClassificationSettings.Default;
+        _extractor = new ShapeExtractor(samplingRateHz, leads, _settings);
+        _templates = new TemplateSet(leads, _extractor.Segment, _extractor.AtrialLength, _settings);
+        _rhythm = new RhythmContext(_settings);
+        _shape = _extractor.NewShape();
+        _decision = new BeatDecision(_settings, _rhythm);
+    }
+
+    /// <summary>Beats decided and not yet taken.</summary>
+    public int Ready => _decided.Count;
+
+    /// <summary>
+    /// Adds the next beat. <paramref name="window"/> holds <paramref name="length"/> conditioned samples of every lead,
+    /// lead-major (lead k at k × length), around the fiducial, which is at <paramref name="fiducialIndex"/> in it
+    /// (about 0.5 s before to 0.7 s after is what the features need).
+    /// </summary>
+    public void Add(long fiducial, ReadOnlySpan<float> window, int length, int fiducialIndex, in BeatMeasurements measurements)
+    {
+        if (fiducial <= _lastSample)
+        {
+            throw new ArgumentException($"beats must come in time order: {fiducial} after {_lastSample}", nameof(fiducial));
+        }
+
+        var rrS = _lastSample < 0 ? double.NaN : (fiducial - _lastSample) / _fs;
+        var reference = _rhythm.RecentMedian(9);
+        var onTime = double.IsNaN(rrS) || double.IsNaN(reference) || rrS >= _settings.PrematureRatio * reference;
+
+        var beat = new Pending { Sample = fiducial, RrPrevS = rrS, PWave = measurements.PWave };
+        if (_extractor.Extract(window, length, fiducialIndex, _shape))
+        {
+            var width = float.IsNaN(measurements.QrsWidthMs) ? _shape.SpreadMs : measurements.QrsWidthMs;
+            var match = _templates.Assign(_shape, onTime, float.IsNaN(measurements.QrsWidthMs) ? double.NaN : measurements.QrsWidthMs);
+            beat.Valid = true;
+            beat.Template = match.Template.Id;
+            beat.NewShape = match.Created;
+            beat.WidthMs = width;
+            beat.Noise = _shape.NoiseRatio;
+            var t = match.Template;
+            beat.TemplatePrematureShare = t.Weight > 0 ? t.PrematureWeight / t.Weight : 0;
+            var normal = _templates.Normal!;
+            beat.IsNormalTemplate = normal == match.Template;
+            (beat.CorrelationToNormal, beat.AmplitudeToNormal, _) = beat.IsNormalTemplate
+                ? (match.Correlation, match.Amplitude, 0)
+                : _templates.BestShift(_shape, normal);
+            beat.AtrialCorrelation = TemplateSet.AtrialCorrelation(_shape, normal);
+            var normalWidth = float.IsNaN(measurements.QrsWidthMs) || double.IsNaN(normal.WidthMs) ? normal.SpreadMs : normal.WidthMs;
+            beat.ExtraWidthMs = width - normalWidth;
+        }
+
+        if (_pending is Pending previous)
+        {
+            Decide(previous, rrS);
+        }
+
+        if (!double.IsNaN(rrS))
+        {
+            _rhythm.AddRr(rrS, _decision.PreviousClass is BeatClass.V or BeatClass.S);
+        }
+
+        _pending = beat;
+        _lastSample = fiducial;
+    }
+
+    /// <summary>Takes the oldest decided beat.</summary>
+    public bool TryTake(out ClassifiedBeat beat) => _decided.TryDequeue(out beat);
+
+    /// <summary>Ends the recording: the last beat is decided without a following RR.</summary>
+    public void Flush()
+    {
+        if (_pending is Pending last)
+        {
+            Decide(last, double.NaN);
+            _pending = null;
+        }
+    }
+
+    private void Decide(Pending beat, double rrNextS)
+    {
+        var (cls, flags) = _decision.Decide(beat, rrNextS);
+        _decided.Enqueue(new ClassifiedBeat(beat.Sample, cls, beat.Valid ? beat.Template : (short)-1, flags, beat.Valid ? beat.WidthMs : float.NaN));
+    }
+
+    internal struct Pending
+    {
+        public long Sample;
+        public double RrPrevS;
+        public sbyte PWave;
+        public bool Valid;
+        public short Template;
+        public bool IsNormalTemplate;
+        public double CorrelationToNormal;
+        public double AmplitudeToNormal;
+        public float WidthMs;
+        public double ExtraWidthMs;
+        public float Noise;
+        public double TemplatePrematureShare;
+        public double AtrialCorrelation;
+        public bool NewShape;
+    }
+}

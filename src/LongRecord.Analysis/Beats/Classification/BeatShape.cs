@@ -1,0 +1,88 @@
+namespace LongRecord.Analysis.Beats.Classification;
+
+/// <summary>
+/// The QRS-centred segment of one beat on every lead, with a margin on both sides so that it can be compared
+/// with a template at small shifts, and the beat's own morphology features.
+/// </summary>
+internal sealed class BeatShape
+{
+    public BeatShape(int leads, int segment, int margin, int atrial)
+    {
+        AtrialLength = atrial;
+        Atrial = new float[leads * atrial];
+        Leads = leads;
+        Segment = segment;
+        Margin = margin;
+        Span = segment + 2 * margin;
+        Samples = new float[leads * Span];
+        Prefix = new double[leads * (Span + 1)];
+        PrefixSquares = new double[leads * (Span + 1)];
+    }
+
+    public int Leads { get; }
+
+    /// <summary>Samples per lead of the segment before the QRS where a P wave lies.</summary>
+    public int AtrialLength { get; }
+
+    /// <summary>The pre-QRS segment, zero-mean per lead, lead-major.</summary>
+    public float[] Atrial { get; }
+
+    /// <summary>Samples per lead that a template holds.</summary>
+    public int Segment { get; }
+
+    /// <summary>Extra samples on each side (the largest shift tried).</summary>
+    public int Margin { get; }
+
+    /// <summary>Samples per lead held here: <see cref="Segment"/> + 2 × <see cref="Margin"/>.</summary>
+    public int Span { get; }
+
+    /// <summary>Lead-major samples, lead k at k × <see cref="Span"/>.</summary>
+    public float[] Samples { get; }
+
+    // Running sums per lead (Span + 1 entries each) so that mean and energy at any shift cost O(1).
+    public double[] Prefix { get; }
+
+    public double[] PrefixSquares { get; }
+
+    /// <summary>Window index of the segment centre (the aligned QRS centre).</summary>
+    public int CentreIndex { get; set; }
+
+    /// <summary>Spread of the QRS slope energy (10 % to 90 % of its cumulative sum), ms: a proxy for QRS width.</summary>
+    public float SpreadMs { get; set; }
+
+    /// <summary>Largest absolute slope in the QRS, summed over leads (mV per sample).</summary>
+    public float PeakSlope { get; set; }
+
+    /// <summary>Slope energy outside the QRS relative to the QRS's own (higher for noisy beats).</summary>
+    public float NoiseRatio { get; set; }
+
+    public bool Valid { get; set; }
+
+    /// <summary>Zero-mean energy of lead <paramref name="k"/> over the segment at shift <paramref name="shift"/>.</summary>
+    public double Energy(int k, int shift, out double mean)
+    {
+        var b = k * (Span + 1);
+        var from = Margin + shift;
+        var to = from + Segment;
+        var s = Prefix[b + to] - Prefix[b + from];
+        var s2 = PrefixSquares[b + to] - PrefixSquares[b + from];
+        mean = s / Segment;
+        return Math.Max(0, s2 - s * mean);
+    }
+
+    public void BuildSums()
+    {
+        for (var k = 0; k < Leads; k++)
+        {
+            var b = k * (Span + 1);
+            Prefix[b] = 0;
+            PrefixSquares[b] = 0;
+            for (var i = 0; i < Span; i++)
+            {
+                double v = Samples[k * Span + i];
+                Prefix[b + i + 1] = Prefix[b + i] + v;
+                PrefixSquares[b + i + 1] = PrefixSquares[b + i] + v * v;
+            }
+        }
+    }
+}

@@ -1,0 +1,114 @@
+namespace LongRecord.Analysis.Beats.Classification;
+
+/// <summary>
+/// Thresholds of the beat classifier. None is fitted to an annotated database; each is stated with where it comes from.
+/// </summary>
+public sealed record ClassificationSettings
+{
+    public static ClassificationSettings Default { get; } = new();
+
+    /// <summary>Start of the compared QRS segment before its centre, ms (covers the Q wave and the PR junction; common practice, no source).</summary>
+    public double SegmentBeforeMs { get; init; } = 100;
+
+    /// <summary>End of the compared QRS segment after its centre, ms (covers a wide S wave and the ST junction; common practice, no source).</summary>
+    public double SegmentAfterMs { get; init; } = 140;
+
+    /// <summary>Start of the pre-QRS (P wave) segment before the QRS centre, ms (PR interval 120–200 ms, P wave up to about 110 ms; textbook, from memory).</summary>
+    public double AtrialFromMs { get; init; } = 260;
+
+    /// <summary>End of the pre-QRS segment before the QRS centre, ms.</summary>
+    public double AtrialToMs { get; init; } = 60;
+
+    /// <summary>Largest shift tried when aligning a beat to a template, ms.</summary>
+    public double ShiftMs { get; init; } = 12;
+
+    /// <summary>Most templates kept per recording.</summary>
+    public int MaxTemplates { get; init; } = 12;
+
+    /// <summary>Correlation a beat needs to join a template (template matching at r ≥ 0.9 is common practice, no source).</summary>
+    public double MatchCorrelation { get; init; } = 0.9;
+
+    /// <summary>Largest amplitude ratio (either way) between a beat and the template it joins (respiration moves QRS amplitude by tens of per cent; common practice, no source).</summary>
+    public double MatchAmplitudeRatio { get; init; } = 1.5;
+
+    /// <summary>Correlation above which two templates merge.</summary>
+    public double MergeCorrelation { get; init; } = 0.95;
+
+    /// <summary>A template's running mean weighs a new beat at least 1 / this.</summary>
+    public int TemplateAdaptBeats { get; init; } = 32;
+
+    /// <summary>Beats over which a template's weight halves (about 30 min at 70 /min).</summary>
+    public int TemplateHalfLifeBeats { get; init; } = 2000;
+
+    /// <summary>Another template becomes the normal one only when it outweighs the current one by this factor.</summary>
+    public double NormalSwitchRatio { get; init; } = 1.5;
+
+    /// <summary>
+    /// A beat is premature when its RR is below this fraction of the local normal RR. Holter practice flags
+    /// supraventricular prematurity at 20–30 % (common practice, from memory); 0.85 sits between the 0.8–0.9 values in use.
+    /// </summary>
+    public double PrematureRatio { get; init; } = 0.9;
+
+    /// <summary>
+    /// A full compensatory pause: coupling RR plus the following RR reach twice the local normal RR; this fraction of
+    /// it allows for sinus variability (the sinus node is not reset by a ventricular beat; textbook physiology, from memory).
+    /// </summary>
+    public double CompensatoryRatio { get; init; } = 0.9;
+
+    /// <summary>Supraventricular RRs whose median is the local rhythm (about 15 s at 70 /min; runs of fewer than half as many premature beats do not move it).</summary>
+    public int LocalRrBeats { get; init; } = 16;
+
+    /// <summary>
+    /// Atrial fibrillation is taken as present when the median beat-to-beat RR change (the least over lags 1–3, so
+    /// bigeminy and trigeminy count as regular) exceeds this fraction of the mean RR (common practice, no source).
+    /// </summary>
+    public double IrregularityThreshold { get; init; } = 0.05;
+
+    /// <summary>The lower irregularity that counts as atrial fibrillation when P waves are absent (or unlike the sinus P from beat to beat).</summary>
+    public double IrregularityWithoutPThreshold { get; init; } = 0.03;
+
+    /// <summary>Mean likeness of the pre-QRS segments to the sinus template below which P waves are taken as absent.</summary>
+    public double FibrillationAtrialCorrelation { get; init; } = 0.6;
+
+    /// <summary>A pre-QRS segment correlating this well with the sinus template's carries a sinus P wave.</summary>
+    public double SinusAtrialCorrelation { get; init; } = 0.8;
+
+    /// <summary>RRs over which irregularity is judged.</summary>
+    public int IrregularityBeats { get; init; } = 24;
+
+    /// <summary>Correlation with the normal template above which a beat's shape counts as normal.</summary>
+    public double NormalCorrelation { get; init; } = 0.9;
+
+    /// <summary>Correlation with the normal template below which a beat's shape counts as clearly different.</summary>
+    public double DifferentCorrelation { get; init; } = 0.7;
+
+    /// <summary>
+    /// A QRS this much wider than the normal template's counts as wide (ventricular conduction widens the QRS well past
+    /// the normal 80–100 ms, typically to 120 ms or more; textbook, from memory).
+    /// </summary>
+    public double WideExtraMs { get; init; } = 30;
+
+    /// <summary>
+    /// A beat whose noise ratio (mean absolute second difference away from the QRS over the QRS's peak slope) exceeds
+    /// this is Q. Clean windows give about 0.03; three times that is taken as noise (common practice, no source).
+    /// </summary>
+    public double NoiseLimit { get; init; } = 0.1;
+
+    /// <summary>A QRS this much narrower than the normal template's cannot be ventricular (ventricular conduction is slower, never faster; textbook, from memory).</summary>
+    public double NarrowerMs { get; init; } = 10;
+
+    /// <summary>
+    /// The first premature supraventricular beat must also be this much shorter than the RR before it: sinus rate
+    /// changes from beat to beat by a few per cent, a premature beat breaks the rhythm abruptly (common practice, no source).
+    /// </summary>
+    public double AbruptRatio { get; init; } = 0.9;
+
+    /// <summary>The RR after a premature supraventricular beat is at least this much longer than its coupling RR (the pause), unless a run follows (common practice, no source).</summary>
+    public double PauseRatio { get; init; } = 1.1;
+
+    /// <summary>Inside a run, successive RRs differ by at most this fraction (an ectopic atrial focus fires regularly; common practice, no source).</summary>
+    public double RunSteadiness { get; init; } = 0.2;
+
+    /// <summary>A run of premature supraventricular beats this long is a new rhythm: the local rhythm restarts from it (common practice, no source).</summary>
+    public int MaxRunBeats { get; init; } = 100;
+}

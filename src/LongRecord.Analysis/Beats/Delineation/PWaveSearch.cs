@@ -1,0 +1,332 @@
+namespace LongRecord.Analysis.Beats.Delineation;
+
+/// <summary>
+/// The P-wave stage: in the PR window before the QRS onset, on a lead low-passed for slow waves, the largest
+/// deflection from the local baseline is the P-wave candidate. A P wave is reported only when the candidate is a
+/// single rounded wave of plausible width, stands well above the rest of the window (fibrillatory and flutter waves
+/// fill it), and repeats from beat to beat: its stretch of signal correlates with the same stretch before the QRS of
+/// the recent beats, and its distance to the QRS agrees with theirs (atrial activity in AF bears no fixed relation
+/// to the QRS). Laguna et al. (1994) place the P search window relative to the QRS; the activity and consistency
+/// tests are ours.
+/// </summary>
+internal sealed class PWaveSearch
+{
+    private readonly PWaveSamples _p;
+    private readonly float[][] _history;   // per lead: History windows of TemplateLength samples, aligned to the QRS onset
+    private readonly int[][] _historyStart; // per lead: first valid sample of each stored window (0 = whole window valid)
+    private readonly int[][] _historyPr;    // per lead: the stored beats' candidate distance to the QRS onset, samples (−1 = none)
+    private readonly int[] _historyCount;
+    private readonly float[] _correlations;
+
+    public PWaveSearch(int leads, in PWaveSamples p)
+    {
+        _p = p;
+        _history = new float[leads][];
+        _historyStart = new int[leads][];
+        _historyPr = new int[leads][];
+        _historyCount = new int[leads];
+        for (var k = 0; k < leads; k++)
+        {
+            _history[k] = new float[p.History * p.TemplateLength];
+            _historyStart[k] = new int[p.History];
+            _historyPr[k] = new int[p.History];
+        }
+
+        _correlations = new float[p.History];
+    }
+
+    /// <summary>
+    /// Measures lead <paramref name="lead"/>: <paramref name="y"/> is the slow-wave signal of the window,
+    /// <paramref name="start"/> the first sample the P window may use (after the previous T wave), <paramref name="qrsOnset"/>
+    /// the multilead QRS onset. The beat is added to the lead's history.
+    /// </summary>
+    public LeadP Measure(int lead, ReadOnlySpan<float> y, int start, int qrsOnset, Span<float> scratch)
+    {
+        var result = new LeadP { Peak = -1, Correlation = float.NaN, PrAgreement = float.NaN };
+        var end = qrsOnset - _p.EndGap;
+        var begin = Math.Max(Math.Max(start, 0), qrsOnset - _p.Window);
+        if (end - begin < _p.MinWindow)
+        {
+            return result;
+        }
+
+        result.Judged = true;
+
+        // Baseline: the straight line through the medians of the two ends of the window.
+        var left = MedianOf(y.Slice(begin, _p.Edge), scratch);
+        var right = MedianOf(y.Slice(end - _p.Edge, _p.Edge), scratch);
+        var baseline = new Line(left, (right - left) / Math.Max(1, end - _p.Edge / 2 - (begin + _p.Edge / 2)), begin + _p.Edge / 2);
+
+        // The candidate: the largest local extremum that is a whole wave inside the window (it falls to half its
+        // height on both sides), so the tail of the previous T wave at the window's start is not taken for a P wave.
+        var peakFrom = Math.Max(begin + 1, qrsOnset - _p.PeakEarliest);
+        var peakTo = Math.Min(end - 2, qrsOnset - _p.PeakLatest);
+        var at = -1;
+        var best = 0f;
+        for (var i = peakFrom; i <= peakTo; i++)
+        {
+            var v = y[i] - baseline.At(i);
+            var size = Math.Abs(v);
+            if (size <= best || size < Math.Abs(y[i - 1] - baseline.At(i - 1)) || size < Math.Abs(y[i + 1] - baseline.At(i + 1)))
+            {
+                continue;
+            }
+
+            if (WholeWave(y, begin, end, i, baseline))
+            {
+                best = size;
+                at = i;
+            }
+        }
+
+        if (at >= 0)
+        {
+            Describe(y, begin, end, at, baseline, ref result);
+            Judge(lead, y, begin, qrsOnset, at, ref result);
+        }
+
+        Remember(lead, y, begin, qrsOnset, at, baseline);
+        return result;
+    }
+
+    // A P wave: a plausible, isolated wave that repeats from beat to beat (no history yet counts as repeating). The
+    // tests run cheapest first; the shape correlation only when the others pass.
+    private void Judge(int lead, ReadOnlySpan<float> y, int begin, int qrsOnset, int at, ref LeadP result)
+    {
+        var g = _p.Gate;
+        var plausible = Math.Abs(result.Amplitude) >= g.MinAmplitude && result.HalfWidth >= g.MinHalfWidth && result.HalfWidth <= g.MaxHalfWidth;
+        var isolated = result.Ratio >= g.Ratio && result.PeakRatio >= g.PeakRatio;
+        if (!plausible || !isolated)
+        {
+            return;
+        }
+
+        var count = Math.Min(_historyCount[lead], _p.History);
+        if (count > 0)
+        {
+            var agree = 0;
+            var pr = qrsOnset - at;
+            for (var j = 0; j < count; j++)
+            {
+                if (_historyPr[lead][j] >= 0 && Math.Abs(_historyPr[lead][j] - pr) <= _p.PrTolerance)
+                {
+                    agree++;
+                }
+            }
+
+            result.PrAgreement = (float)agree / count;
+            if (result.PrAgreement < g.PrAgreement)
+            {
+                return;
+            }
+
+            result.Correlation = Correlation(lead, y, begin, qrsOnset, at, count);
+            if (result.Correlation < g.Correlation)
+            {
+                return;
+            }
+        }
+
+        result.Accepted = true;
+    }
+
+    private static bool WholeWave(ReadOnlySpan<float> y, int begin, int end, int at, in Line baseline)
+    {
+        var v = y[at] - baseline.At(at);
+        var sign = Math.Sign(v);
+        var half = 0.5f * Math.Abs(v);
+        var lo = at;
+        while (lo > begin && sign * (y[lo] - baseline.At(lo)) > half)
+        {
+            lo--;
+        }
+
+        var hi = at;
+        while (hi < end - 1 && sign * (y[hi] - baseline.At(hi)) > half)
+        {
+            hi++;
+        }
+
+        return sign * (y[lo] - baseline.At(lo)) <= half && sign * (y[hi] - baseline.At(hi)) <= half;
+    }
+
+    private void Describe(ReadOnlySpan<float> y, int begin, int end, int at, in Line baseline, ref LeadP result)
+    {
+        var amplitude = y[at] - baseline.At(at);
+        var sign = Math.Sign(amplitude);
+        var size = Math.Abs(amplitude);
+
+        // Extent of the wave: out from the peak while it keeps its sign and stays above 20 % of the peak.
+        int lo = at, hi = at, halfLo = at, halfHi = at;
+        while (lo > begin && sign * (y[lo - 1] - baseline.At(lo - 1)) > 0.2f * size)
+        {
+            lo--;
+            if (sign * (y[lo] - baseline.At(lo)) >= 0.5f * size)
+            {
+                halfLo = lo;
+            }
+        }
+
+        while (hi < end - 1 && sign * (y[hi + 1] - baseline.At(hi + 1)) > 0.2f * size)
+        {
+            hi++;
+            if (sign * (y[hi] - baseline.At(hi)) >= 0.5f * size)
+            {
+                halfHi = hi;
+            }
+        }
+
+        // The rest of the window, outside the wave and a margin: its RMS and its largest deflection.
+        double sum = 0;
+        var n = 0;
+        var largest = 0f;
+        for (var i = begin; i < end; i++)
+        {
+            if (i >= lo - _p.Margin && i <= hi + _p.Margin)
+            {
+                continue;
+            }
+
+            var v = y[i] - baseline.At(i);
+            sum += v * v;
+            largest = Math.Max(largest, Math.Abs(v));
+            n++;
+        }
+
+        result.Peak = at;
+        result.Amplitude = amplitude;
+        result.HalfWidth = halfHi - halfLo + 1;
+        result.RestSamples = n;
+        result.Activity = n > 0 ? (float)Math.Sqrt(sum / n) : 0f;
+        result.RestLargest = largest;
+    }
+
+    // Median over the stored beats of the best correlation (over a small lag) between the candidate's stretch and the
+    // same stretch, relative to the QRS onset, of the stored beat.
+    private float Correlation(int lead, ReadOnlySpan<float> y, int begin, int qrsOnset, int at, int count)
+    {
+        var windowStart = qrsOnset - _p.TemplateLength;
+
+        // Only the P window's own stretch: the QRS onset or the previous T wave would correlate in any rhythm.
+        var a = Math.Max(begin, at - _p.CorrelationHalf);
+        var b = Math.Min(qrsOnset - _p.EndGap - 1, at + _p.CorrelationHalf);
+        var n = b - a + 1;
+        if (n < 3 * _p.CorrelationStep)
+        {
+            return float.NaN;
+        }
+
+        // The slow-wave signal is sampled every `step` samples (about 8 ms): enough for a 15 Hz band, and the cost no
+        // longer grows with the sampling rate.
+        var step = _p.CorrelationStep;
+        var m = (n + step - 1) / step;
+        float sy = 0, syy = 0;
+        for (var i = a; i <= b; i += step)
+        {
+            sy += y[i];
+            syy += y[i] * y[i];
+        }
+
+        var varY = syy - sy * sy / m;
+        var used = 0;
+        for (var j = 0; j < count; j++)
+        {
+            var stored = _history[lead].AsSpan(j * _p.TemplateLength, _p.TemplateLength);
+            var validFrom = _historyStart[lead][j];
+            var bestR = float.NaN;
+            for (var lag = -_p.MaxLag; lag <= _p.MaxLag; lag += step)
+            {
+                var sa = a - windowStart + lag;
+                if (sa < validFrom || sa + n > _p.TemplateLength)
+                {
+                    continue;
+                }
+
+                float sx = 0, sxx = 0, sxy = 0;
+                for (int i = a, t = sa; i <= b; i += step, t += step)
+                {
+                    var u = stored[t];
+                    sx += u;
+                    sxx += u * u;
+                    sxy += u * y[i];
+                }
+
+                var den = MathF.Sqrt(Math.Max(0, sxx - sx * sx / m) * Math.Max(0, varY));
+                var r = den > 0 ? (sxy - sx * sy / m) / den : 0f;
+                if (float.IsNaN(bestR) || r > bestR)
+                {
+                    bestR = r;
+                }
+            }
+
+            if (!float.IsNaN(bestR))
+            {
+                _correlations[used++] = bestR;
+            }
+        }
+
+        return used > 0 ? Selection.Median(_correlations.AsSpan(0, used)) : float.NaN;
+    }
+
+    private void Remember(int lead, ReadOnlySpan<float> y, int begin, int qrsOnset, int at, in Line baseline)
+    {
+        var slot = _historyCount[lead] % _p.History;
+        var stored = _history[lead].AsSpan(slot * _p.TemplateLength, _p.TemplateLength);
+        var windowStart = qrsOnset - _p.TemplateLength;
+        var validFrom = Math.Max(0, begin - windowStart);
+        for (var i = 0; i < stored.Length; i++)
+        {
+            var src = windowStart + i;
+            stored[i] = i >= validFrom && src >= 0 ? y[src] - baseline.At(src) : 0f;
+        }
+
+        _historyStart[lead][slot] = validFrom;
+        _historyPr[lead][slot] = at >= 0 ? qrsOnset - at : -1;
+        _historyCount[lead]++;
+    }
+
+    private static float MedianOf(ReadOnlySpan<float> values, Span<float> scratch)
+    {
+        var s = scratch[..values.Length];
+        values.CopyTo(s);
+        return Selection.Median(s);
+    }
+
+    private readonly record struct Line(float Level, float Slope, int Origin)
+    {
+        public float At(int i) => Level + Slope * (i - Origin);
+    }
+}
+
+/// <summary>What the P-wave stage measured on one lead.</summary>
+internal struct LeadP
+{
+    public bool Judged;
+    public int Peak;
+    public float Amplitude;
+    public int HalfWidth;
+    public int RestSamples;
+    public float Activity;
+    public float RestLargest;
+
+    /// <summary>Median correlation of the candidate's stretch with the same stretch of the recent beats (NaN: no history).</summary>
+    public float Correlation;
+
+    /// <summary>Share of the recent beats whose candidate lay at the same distance before the QRS (NaN: no history).</summary>
+    public float PrAgreement;
+
+    public bool Accepted;
+
+    public readonly float Ratio => Activity > 0 ? Math.Abs(Amplitude) / Activity : float.PositiveInfinity;
+
+    public readonly float PeakRatio => RestLargest > 0 ? Math.Abs(Amplitude) / RestLargest : float.PositiveInfinity;
+}
+
+/// <summary>P-wave settings in samples for one sampling rate.</summary>
+internal readonly record struct PWaveSamples(
+    int Window, int EndGap, int MinWindow, int Edge, int PeakEarliest, int PeakLatest, int Margin,
+    int TemplateLength, int History, int CorrelationHalf, int MaxLag, int PrTolerance, PWaveGate Gate, int CorrelationStep = 1);
+
+/// <summary>The P-wave decision thresholds (amplitude in mV, widths in samples).</summary>
+internal readonly record struct PWaveGate(
+    float MinAmplitude, int MinHalfWidth, int MaxHalfWidth, float Ratio, float PeakRatio, float PrAgreement, float Correlation);

@@ -1,0 +1,131 @@
+using NWaves.Filters.Fda;
+
+namespace LongRecord.Analysis.Conditioning;
+
+/// <summary>
+/// Streaming conditioning of one lead: baseline-wander removal (second-order Butterworth high-pass at 0.5 Hz, the
+/// lower corner that AHA recommendations give for diagnostic ECG — from memory) and mains-interference notches at 50 and
+/// 60 Hz (both: recorders do not say which mains they met). Causal, with the filter state carried between blocks, so
+/// any block size gives the same samples. Missing samples (NaN) hold the last value through the filters and stay NaN
+/// in the output.
+/// </summary>
+public sealed class EcgConditioner
+{
+    private readonly BiquadCascade _filter;
+    private bool _started;
+    private float _last;
+
+    public EcgConditioner(double samplingRateHz, ConditioningSettings? settings = null)
+    {
+        settings ??= ConditioningSettings.Default;
+        // One cascade (high-pass sections, then the notches) so all sections run in one loop over the samples.
+        var sections = DesignFilter.TfToSos(new NWaves.Filters.Butterworth.HighPassFilter(settings.HighPassHz / samplingRateHz, 2).Tf).ToList();
+        foreach (var mains in settings.MainsHz)
+        {
+            // A notch only makes sense well below the Nyquist frequency.
+            if (mains < 0.45 * samplingRateHz)
+            {
+                sections.Add(DesignFilter.IirNotch(mains / samplingRateHz, settings.NotchQ));
+            }
+        }
+
+        _filter = new BiquadCascade(sections);
+    }
+
+    /// <summary>Conditions <paramref name="signal"/> in place.</summary>
+    public void Process(Span<float> signal)
+    {
+        if (signal.IsEmpty)
+        {
+            return;
+        }
+
+        if (!_started)
+        {
+            var first = FirstValid(signal);
+            _last = first;
+            _filter.SettleAt(first);
+
+            _started = true;
+        }
+
+        // Hold the last valid value through gaps so the filters stay finite; restore NaN afterwards.
+        bool[]? gap = null;
+        if (ContainsNaN(signal))
+        {
+            gap = new bool[signal.Length];
+            for (var i = 0; i < signal.Length; i++)
+            {
+                if (float.IsNaN(signal[i]))
+                {
+                    gap[i] = true;
+                    signal[i] = _last;
+                }
+                else
+                {
+                    _last = signal[i];
+                }
+            }
+        }
+        else
+        {
+            _last = signal[^1];
+        }
+
+        _filter.Process(signal);
+
+        if (gap is not null)
+        {
+            for (var i = 0; i < signal.Length; i++)
+            {
+                if (gap[i])
+                {
+                    signal[i] = float.NaN;
+                }
+            }
+        }
+    }
+
+    private static bool ContainsNaN(ReadOnlySpan<float> x)
+    {
+        var i = 0;
+        if (System.Numerics.Vector.IsHardwareAccelerated)
+        {
+            var w = System.Numerics.Vector<float>.Count;
+            var v = System.Runtime.InteropServices.MemoryMarshal.Cast<float, System.Numerics.Vector<float>>(x);
+            foreach (var block in v)
+            {
+                // NaN is the only value unequal to itself.
+                if (!System.Numerics.Vector.EqualsAll(block, block))
+                {
+                    return true;
+                }
+            }
+
+            i = v.Length * w;
+        }
+
+        for (; i < x.Length; i++)
+        {
+            if (float.IsNaN(x[i]))
+            {
+                return true;
+            }
+        }
+
+        return false;
+    }
+
+    private static float FirstValid(ReadOnlySpan<float> x)
+    {
+        foreach (var v in x)
+        {
+            if (!float.IsNaN(v))
+            {
+                return v;
+            }
+        }
+
+        return 0;
+    }
+}

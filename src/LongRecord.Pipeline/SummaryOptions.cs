@@ -1,0 +1,14 @@
+namespace LongRecord.Pipeline;
+
+/// <summary>What a summary run does beyond the defaults.</summary>
+public sealed record SummaryOptions
+{
+    /// <summary>Samples per lead read and analysed at a time (results do not depend on it).</summary>
+    public int BlockSamples { get; init; } = 1 << 16;
+
+    /// <summary>
+    /// Re-analysis: take beats from this annotator extension beside the record (<c>qrs</c>, <c>atr</c>, <c>ecg</c>) or
+    /// this file (WFDB annotations or a CSV of R times) instead of detecting them; null detects.
+    /// </summary>
+    public string? Beats { get; init; }
+}
