@@ -26,8 +26,8 @@ namespace LongRecord.Analysis.Rhythm;
 /// </summary>
 internal sealed class AfDetector(AfSettings settings)
 {
-    // Bits of the per-interval measure byte: kept, then for each lag (1–3) "compared" and "alike", then "large".
-    private const byte Kept = 1, Large = 128;
+    // Bits of the per-interval measure word: kept, then for each lag (1–3) "compared", "alike" and "large".
+    private const ushort Kept = 1;
 
     private readonly AfSettings _s = settings;
 
@@ -36,9 +36,16 @@ internal sealed class AfDetector(AfSettings settings)
 
     internal float[]? ProbeLarge { get; set; }
 
-    private static byte Compared(int lag) => (byte)(1 << (2 * lag - 1));
+    private static ushort Compared(int lag) => (ushort)(1 << (3 * lag - 2));
 
-    private static byte Alike(int lag) => (byte)(1 << (2 * lag));
+    private static ushort Alike(int lag) => (ushort)(1 << (3 * lag - 1));
+
+    private static ushort Large(int lag) => (ushort)(1 << (3 * lag));
+
+    // Two large successive differences of opposite sign (short–long–short): the bigeminal swing.
+    private const ushort Swing = 1 << 10;
+
+    private const byte Unjudgeable = 255;
 
     /// <summary>Sets <see cref="IntervalFlags.AfLike"/> and <see cref="IntervalFlags.EctopicExcluded"/> on <paramref name="rr"/>.</summary>
     public void Run(RrSeries rr, ReadOnlySpan<float> fWaveScores)
@@ -50,6 +57,7 @@ internal sealed class AfDetector(AfSettings settings)
         var hasF = fWaveScores.Length == n;
         var half = _s.WindowBeats / 2;
         var w = new WindowCounts { Lags = Math.Min(_s.MaxPatternLag, 3) };
+        var level = new byte[n];
         var s = 1;
         while (s < n)
         {
@@ -82,10 +90,38 @@ internal sealed class AfDetector(AfSettings settings)
                     w.Add(measure[lo], beats[lo].PWave, hasF ? fWaveScores[lo] : float.NaN, -1);
                 }
 
-                if (Judge(ref w, hi - lo, i))
+                level[i] = Judge(ref w, hi - lo, i);
+                if (level[i] == Unjudgeable)
                 {
-                    rr.Flags[i] |= IntervalFlags.AfLike;
+                    level[i] = 0;
+                    rr.Flags[i] |= IntervalFlags.Unjudged;
                 }
+            }
+
+            // Hysteresis, symmetric in time: a stretch at or above the hold level is AF-like when it reaches the
+            // onset level somewhere.
+            for (var a = s; a < e;)
+            {
+                if (level[a] == 0)
+                {
+                    a++;
+                    continue;
+                }
+
+                var b = a;
+                var reaches = false;
+                while (b < e && level[b] > 0)
+                {
+                    reaches |= level[b] == 2;
+                    b++;
+                }
+
+                for (var q = a; reaches && q < b; q++)
+                {
+                    rr.Flags[q] |= IntervalFlags.AfLike;
+                }
+
+                a = b;
             }
 
             s = e;
@@ -96,23 +132,26 @@ internal sealed class AfDetector(AfSettings settings)
     private struct WindowCounts
     {
         public int Lags;
-        public int Kept, Large, Judged, Present, FCount;
+        public int Kept, Judged, Present, FCount, Swings;
         public double FSum;
-        public int Compared1, Compared2, Compared3, Alike1, Alike2, Alike3;
+        public int Compared1, Compared2, Compared3, Alike1, Alike2, Alike3, Large1, Large2, Large3;
 
         public void Clear()
         {
-            Kept = Large = Judged = Present = FCount = 0;
+            Kept = Judged = Present = FCount = Swings = 0;
             FSum = 0;
-            Compared1 = Compared2 = Compared3 = Alike1 = Alike2 = Alike3 = 0;
+            Compared1 = Compared2 = Compared3 = Alike1 = Alike2 = Alike3 = Large1 = Large2 = Large3 = 0;
         }
 
-        public void Add(byte m, sbyte pWave, float fScore, int sign)
+        public void Add(ushort m, sbyte pWave, float fScore, int sign)
         {
             if ((m & AfDetector.Kept) != 0)
             {
+                Swings += (m & Swing) != 0 ? sign : 0;
                 Kept += sign;
-                Large += (m & AfDetector.Large) != 0 ? sign : 0;
+                Large1 += (m & AfDetector.Large(1)) != 0 ? sign : 0;
+                Large2 += (m & AfDetector.Large(2)) != 0 ? sign : 0;
+                Large3 += (m & AfDetector.Large(3)) != 0 ? sign : 0;
                 Compared1 += (m & AfDetector.Compared(1)) != 0 ? sign : 0;
                 Compared2 += (m & AfDetector.Compared(2)) != 0 ? sign : 0;
                 Compared3 += (m & AfDetector.Compared(3)) != 0 ? sign : 0;
@@ -131,34 +170,54 @@ internal sealed class AfDetector(AfSettings settings)
             }
         }
 
-        public readonly double BestAlikeShare()
+        /// <summary>
+        /// The least, over lags, of (share of large differences − share of alike pairs): high only when the rhythm
+        /// is irregular at every lag, low as soon as it repeats at one (bigeminal suppression).
+        /// </summary>
+        public readonly double IrregularityMargin(out double alikeAtBest, out double largeAtBest)
         {
-            var best = Compared1 > 0 ? (double)Alike1 / Compared1 : 0;
-            if (Lags >= 2 && Compared2 > 0)
+            var best = Margin(Compared1, Alike1, Large1);
+            alikeAtBest = Share(Alike1, Compared1);
+            largeAtBest = Share(Large1, Compared1);
+            if (Lags >= 2 && Compared2 > 0 && Margin(Compared2, Alike2, Large2) < best)
             {
-                best = Math.Max(best, (double)Alike2 / Compared2);
+                best = Margin(Compared2, Alike2, Large2);
+                alikeAtBest = Share(Alike2, Compared2);
+                largeAtBest = Share(Large2, Compared2);
             }
 
-            if (Lags >= 3 && Compared3 > 0)
+            if (Lags >= 3 && Compared3 > 0 && Margin(Compared3, Alike3, Large3) < best)
             {
-                best = Math.Max(best, (double)Alike3 / Compared3);
+                best = Margin(Compared3, Alike3, Large3);
+                alikeAtBest = Share(Alike3, Compared3);
+                largeAtBest = Share(Large3, Compared3);
             }
 
             return best;
         }
+
+        private static double Share(int count, int of) => of > 0 ? (double)count / of : 0;
+
+        private static double Margin(int compared, int alike, int large) => compared > 0 ? (double)(large - alike) / compared : 0;
     }
 
-    private bool Judge(ref WindowCounts w, int spanned, int interval)
+    /// <summary>2: fibrillation-like at the onset level; 1: at the hold level only; 0: not.</summary>
+    private byte Judge(ref WindowCounts w, int spanned, int interval)
     {
-        // Too little kept (ectopy, artefact) to judge: not AF.
+        // Too little kept (ectopy, artefact) to judge.
         if (w.Kept * 2 < _s.WindowBeats || w.Compared1 * 2 < _s.WindowBeats)
         {
-            return false;
+            return Unjudgeable;
+        }
+
+        // Bigeminal suppression, second part: short and long intervals alternating beat after beat.
+        if (w.Compared2 > 0 && w.Swings >= _s.BigeminalSwingShare * w.Compared2)
+        {
+            return 0;
         }
 
         // Bigeminal suppression: the best-repeating lag decides how organised the window is.
-        var alikeShare = w.BestAlikeShare();
-        var largeShare = (double)w.Large / w.Compared1;
+        var margin = w.IrregularityMargin(out var alikeShare, out var largeShare);
         if (ProbeAlike is not null && ProbeLarge is not null)
         {
             ProbeAlike[interval] = (float)alikeShare;
@@ -172,7 +231,7 @@ internal sealed class AfDetector(AfSettings settings)
             var presentShare = (double)w.Present / w.Judged;
             if (presentShare >= _s.PWavePresentVeto)
             {
-                return false;
+                return 0;
             }
 
             if (presentShare <= _s.PWaveAbsentSupport)
@@ -186,17 +245,17 @@ internal sealed class AfDetector(AfSettings settings)
             relief = Math.Max(relief, _s.AtrialRelief);
         }
 
-        return largeShare - alikeShare >= _s.MinIrregularityMargin - relief;
+        return margin >= _s.MinIrregularityMargin - relief ? (byte)2 : margin >= _s.HoldIrregularityMargin - relief ? (byte)1 : (byte)0;
     }
 
     /// <summary>
     /// The per-interval measure byte: whether the interval is kept, and how it compares with the kept intervals 1, 2
     /// and 3 places before it in the same analysable run.
     /// </summary>
-    private byte[] Measure(RrSeries rr)
+    private ushort[] Measure(RrSeries rr)
     {
         var n = rr.Count;
-        var measure = new byte[n];
+        var measure = new ushort[n];
         Span<float> previous = stackalloc float[4];
         var have = 0;
         for (var i = 1; i < n; i++)
@@ -213,7 +272,19 @@ internal sealed class AfDetector(AfSettings settings)
             }
 
             var x = rr.RrS[i];
-            byte m = Kept;
+            var m = Kept;
+            if (have >= 2)
+            {
+                var d1 = x - previous[0];
+                var d2 = previous[0] - previous[1];
+                var large1 = Math.Abs(d1) > _s.LargeDifferenceFraction * 0.5f * (x + previous[0]);
+                var large2 = Math.Abs(d2) > _s.LargeDifferenceFraction * 0.5f * (previous[0] + previous[1]);
+                if (large1 && large2 && (d1 > 0) != (d2 > 0))
+                {
+                    m |= Swing;
+                }
+            }
+
             for (var lag = 1; lag <= Math.Min(have, 3); lag++)
             {
                 var y = previous[lag - 1];
@@ -225,9 +296,9 @@ internal sealed class AfDetector(AfSettings settings)
                     m |= Alike(lag);
                 }
 
-                if (lag == 1 && d > _s.LargeDifferenceFraction * mean)
+                if (d > _s.LargeDifferenceFraction * mean)
                 {
-                    m |= Large;
+                    m |= Large(lag);
                 }
             }
 

@@ -30,15 +30,25 @@ internal static class AfEpisodeBuilder
                     j++;
                 }
 
+                // Judged non-AF time counts against BridgeS; unjudged time (too little kept) against BridgeUnjudgedS.
                 var k = j;
                 var gapS = 0.0;
-                while (k < n && rr.IsAnalysable(k) && !rr.Has(k, IntervalFlags.AfLike) && gapS < s.BridgeS)
+                var unjudgedS = 0.0;
+                while (k < n && rr.IsAnalysable(k) && !rr.Has(k, IntervalFlags.AfLike) && gapS < s.BridgeS && unjudgedS < s.BridgeUnjudgedS)
                 {
-                    gapS += rr.RrS[k];
+                    if (rr.Has(k, IntervalFlags.Unjudged))
+                    {
+                        unjudgedS += rr.RrS[k];
+                    }
+                    else
+                    {
+                        gapS += rr.RrS[k];
+                    }
+
                     k++;
                 }
 
-                if (k < n && k > j && gapS < s.BridgeS && rr.IsAnalysable(k) && rr.Has(k, IntervalFlags.AfLike))
+                if (k < n && k > j && gapS < s.BridgeS && unjudgedS < s.BridgeUnjudgedS && rr.IsAnalysable(k) && rr.Has(k, IntervalFlags.AfLike))
                 {
                     j = k;
                     continue;

@@ -23,4 +23,7 @@ internal enum IntervalFlags : byte
 
     /// <summary>Left out of the AF irregularity measure by ectopic beat filtering.</summary>
     EctopicExcluded = 32,
+
+    /// <summary>The detector could not judge the window around it (too few intervals kept).</summary>
+    Unjudged = 64,
 }

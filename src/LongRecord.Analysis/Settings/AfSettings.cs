@@ -31,6 +31,12 @@ public sealed record AfSettings
     public double MinIrregularityMargin { get; init; } = 0;
 
     /// <summary>
+    /// Hysteresis: next to a window at <see cref="MinIrregularityMargin"/>, windows down to this margin stay AF-like
+    /// (fibrillation does not stop because a few intervals happen to repeat). −0.1: our choice.
+    /// </summary>
+    public double HoldIrregularityMargin { get; init; } = -0.1;
+
+    /// <summary>
     /// Ectopic beat filtering: a beat is premature when its RR is at least this fraction shorter than the reference RR
     /// (median of the recent intervals kept). 0.15: our choice.
     /// </summary>
@@ -58,6 +64,12 @@ public sealed record AfSettings
     public double MaxConductedRrS { get; init; } = 2.0;
 
     /// <summary>
+    /// Bigeminal suppression: a window in which at least this share of successive pairs swing short–long (two large
+    /// differences of opposite sign) is bigeminal, not fibrillation (in fibrillation about 0.45 do). 0.8: our choice.
+    /// </summary>
+    public double BigeminalSwingShare { get; init; } = 0.8;
+
+    /// <summary>
     /// Atrial evidence: where at least half of a window's beats had their P wave judged, a share of P-present beats
     /// at or above this vetoes fibrillation. 0.7: our choice.
     /// </summary>
@@ -76,6 +88,12 @@ public sealed record AfSettings
     public double BridgeS { get; init; } = 5;
 
     /// <summary>
+    /// Stretches the detector could not judge (too few intervals kept: artefact, frequent ectopy) shorter than this,
+    /// between AF on both sides, are bridged too, seconds. 5 s: our choice, as for judged interruptions.
+    /// </summary>
+    public double BridgeUnjudgedS { get; init; } = 5;
+
+    /// <summary>
     /// Shortest AF episode, seconds. 30 s: HRS/EHRA/ECAS/APHRS/SOLAECE expert consensus statement on catheter and
     /// surgical ablation of atrial fibrillation (Calkins H et al., Heart Rhythm 2017;14:e275-e444). Shorter AF-like
     /// stretches are reported as af-brief and not counted in the burden.
@@ -84,6 +102,7 @@ public sealed record AfSettings
 
     internal static readonly SettingField<AfSettings>[] Fields =
     [
+        new("holdIrregularityMargin", s => s.HoldIrregularityMargin, (s, v) => s with { HoldIrregularityMargin = v }, -1, 1),
         new("windowBeats", s => s.WindowBeats, (s, v) => s with { WindowBeats = (int)v }, 4, 256, whole: true),
         new("maxPatternLag", s => s.MaxPatternLag, (s, v) => s with { MaxPatternLag = (int)v }, 1, 6, whole: true),
         new("alikeFraction", s => s.AlikeFraction, (s, v) => s with { AlikeFraction = v }, 0.005, 0.5),
@@ -96,11 +115,13 @@ public sealed record AfSettings
         new("longRrFactor", s => s.LongRrFactor, (s, v) => s with { LongRrFactor = v }, 1.1, 4),
         new("minConductedRrS", s => s.MinConductedRrS, (s, v) => s with { MinConductedRrS = v }, 0.1, 1),
         new("maxConductedRrS", s => s.MaxConductedRrS, (s, v) => s with { MaxConductedRrS = v }, 1, 10),
+        new("bigeminalSwingShare", s => s.BigeminalSwingShare, (s, v) => s with { BigeminalSwingShare = v }, 0, 1),
         new("pWavePresentVeto", s => s.PWavePresentVeto, (s, v) => s with { PWavePresentVeto = v }, 0, 1),
         new("pWaveAbsentSupport", s => s.PWaveAbsentSupport, (s, v) => s with { PWaveAbsentSupport = v }, 0, 1),
         new("fWaveSupport", s => s.FWaveSupport, (s, v) => s with { FWaveSupport = v }, 0, 1),
         new("atrialRelief", s => s.AtrialRelief, (s, v) => s with { AtrialRelief = v }, 0, 1),
         new("bridgeS", s => s.BridgeS, (s, v) => s with { BridgeS = v }, 0, 120),
+        new("bridgeUnjudgedS", s => s.BridgeUnjudgedS, (s, v) => s with { BridgeUnjudgedS = v }, 0, 600),
         new("minEpisodeS", s => s.MinEpisodeS, (s, v) => s with { MinEpisodeS = v }, 1, 3600),
     ];
 }
