@@ -5,7 +5,7 @@ namespace LongRecord.Analysis.Rhythm;
 /// <summary>
 /// Bradycardia episodes: stretches where the averaged rate (sliding mean of K analysable intervals, K =
 /// <c>RateAveragingBeats</c>) stays below the bradycardia rate, lasting at least the minimum duration. An episode runs
-/// from the first beat of its first slow window to the last beat of its last.
+/// over the slow windows, trimmed of intervals at either end that are themselves faster than the rate.
 /// </summary>
 internal static class BradycardiaFinder
 {
@@ -57,6 +57,18 @@ internal static class BradycardiaFinder
 
     private static void Close(RrSeries rr, int firstBeat, int lastBeat, BradycardiaSettings s, int k, List<RhythmEpisode> episodes)
     {
+        // The union of slow windows reaches into the faster rhythm on both sides: trim intervals faster than the rate.
+        var slowRrS = 60.0 / s.RateBpm;
+        while (firstBeat < lastBeat && rr.RrS[firstBeat + 1] < slowRrS)
+        {
+            firstBeat++;
+        }
+
+        while (lastBeat > firstBeat && rr.RrS[lastBeat] < slowRrS)
+        {
+            lastBeat--;
+        }
+
         var a = rr.TimeS(firstBeat);
         var b = rr.TimeS(lastBeat);
         if (b - a < s.MinDurationS)

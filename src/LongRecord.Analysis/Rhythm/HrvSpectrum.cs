@@ -1,12 +1,13 @@
 using System.Numerics;
 using LongRecord.Analysis.Settings;
 using MathNet.Numerics.IntegralTransforms;
+using MathNet.Numerics.Interpolation;
 
 namespace LongRecord.Analysis.Rhythm;
 
 /// <summary>
 /// LF and HF power of one short segment (Task Force 1996: 5 min, LF 0.04–0.15 Hz, HF 0.15–0.4 Hz, in ms²). The NN
-/// series (value at the time of the beat that ends each interval) is linearly interpolated at <c>ResampleHz</c>
+/// series (value at the time of the beat that ends each interval) is interpolated by a natural cubic spline at <c>ResampleHz</c>
 /// across the segment's NN span, its linear trend removed, Hann-windowed and transformed; the one-sided periodogram
 /// is scaled so that it integrates to the windowed series' variance, and band power is its sum over the band's bins
 /// times the bin width. Power is therefore that of the segment's NN variations in each band; VLF below 0.04 Hz is
@@ -29,18 +30,13 @@ internal static class HrvSpectrum
             return (double.NaN, double.NaN);
         }
 
+        // Natural cubic spline through the NN values: linear interpolation would low-pass the series (sinc² of
+        // f × RR: −23 % of power at 0.25 Hz at 75 bpm), a spline keeps the HF band.
+        var spline = CubicSpline.InterpolateNaturalSorted(tS.ToArray(), nnS.ToArray());
         var series = new double[points];
-        var j = 0;
         for (var k = 0; k < points; k++)
         {
-            var t = tS[0] + k / fs;
-            while (j < n - 2 && tS[j + 1] < t)
-            {
-                j++;
-            }
-
-            var f = (t - tS[j]) / (tS[j + 1] - tS[j]);
-            series[k] = nnS[j] + Math.Clamp(f, 0, 1) * (nnS[j + 1] - nnS[j]);
+            series[k] = spline.Interpolate(tS[0] + k / fs);
         }
 
         Detrend(series);

@@ -50,6 +50,13 @@ internal sealed class SettingField<T>(string name, Func<T, double> get, Func<T, 
             return section;
         }
 
+        // Checked here as well as in Check: a whole-number field would otherwise truncate 2.5 to 2 unseen.
+        if (whole && v != Math.Floor(v))
+        {
+            problems.Add($"{path}.{Name}: must be a whole number (is {Text(v)})");
+            return section;
+        }
+
         return set(section, v);
     }
 
