@@ -1,3 +1,4 @@
+using System.Runtime.InteropServices;
 using LongRecord.Analysis.Beats;
 
 namespace LongRecord.Analysis.Rhythm;
@@ -8,9 +9,24 @@ namespace LongRecord.Analysis.Rhythm;
 /// </summary>
 internal sealed class RrSeries
 {
+    private readonly Beat[] _beatArray;
+    private readonly int _beatOffset;
+
     public RrSeries(RhythmInput input, double maxBeatGapS)
     {
         Beats = input.Beats;
+        // Direct array access for the hot TimeS: ReadOnlyMemory.Span costs a type check per call.
+        if (MemoryMarshal.TryGetArray(input.Beats, out var segment) && segment.Array is not null)
+        {
+            _beatArray = segment.Array;
+            _beatOffset = segment.Offset;
+        }
+        else
+        {
+            _beatArray = input.Beats.ToArray();
+            _beatOffset = 0;
+        }
+
         RateHz = input.ReferenceRateHz;
         var beats = input.Beats.Span;
         Count = beats.Length;
@@ -57,7 +73,7 @@ internal sealed class RrSeries
 
     public IntervalFlags[] Flags { get; }
 
-    public double TimeS(int beat) => Beats.Span[beat].Sample / RateHz;
+    public double TimeS(int beat) => _beatArray[_beatOffset + beat].Sample / RateHz;
 
     public bool Has(int interval, IntervalFlags flag) => (Flags[interval] & flag) != 0;
 

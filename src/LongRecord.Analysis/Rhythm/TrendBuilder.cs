@@ -97,6 +97,7 @@ internal static class TrendBuilder
         var first = 1;
         var t = new List<double>();
         var nn = new List<double>();
+        var spectrum = new HrvSpectrum(s);
         for (var w = 0; w < grid.Count; w++)
         {
             var end = grid.EndS(w);
@@ -124,7 +125,7 @@ internal static class TrendBuilder
             var sufficient = coverage >= s.MinSegmentNnFraction && nn.Count >= 4;
             var hrv = sufficient ? HrvCalculator.TimeDomain(rr, first, last, s.TriangularBinS, triangular: false) : HrvFigures.None;
             var (lf, hf) = sufficient
-                ? HrvSpectrum.Bands(System.Runtime.InteropServices.CollectionsMarshal.AsSpan(t), System.Runtime.InteropServices.CollectionsMarshal.AsSpan(nn), s)
+                ? spectrum.Bands(System.Runtime.InteropServices.CollectionsMarshal.AsSpan(t), System.Runtime.InteropServices.CollectionsMarshal.AsSpan(nn))
                 : (double.NaN, double.NaN);
             segments.Add(new HrvSegment
             {
