@@ -57,26 +57,29 @@ public sealed class LtafdbAfTests(ITestOutputHelper output)
         Assert.True(ours.Sensitivity + ours.Specificity > cut.Sensitivity + cut.Specificity);
     }
 
-    private static List<AfScore> Run(AnalysisSettings settings)
+    // The 42 records' beats and reference annotations, read once for both tests.
+    private static readonly Lazy<List<(string Record, double Fs, double DurationS, Beats.Beat[] Beats, IReadOnlyList<Formats.Wfdb.WfdbAnnotation> Atr)>> s_records = new(() =>
     {
         var records = SharedData.Records("ltafdb");
-        Assert.Equal(42, records.Count);
-        var scores = new ConcurrentBag<AfScore>();
-        Parallel.ForEach(records, record =>
+        return records.AsParallel().AsOrdered().Select(record =>
         {
             var header = AnnotationBeats.Header("ltafdb", record);
             var fs = header.SamplingFrequencyHz;
             var beats = AnnotationBeats.Read(AnnotationBeats.Annotations("ltafdb", record, "qrs"), labelled: false);
-            var reference = AnnotationBeats.Annotations("ltafdb", record, "atr");
-            var input = new RhythmInput
-            {
-                Beats = beats,
-                ReferenceRateHz = fs,
-                DurationS = (header.SamplesPerSignal ?? beats[^1].Sample) / fs,
-            };
-            var result = RhythmAnalyser.Analyse(input, settings);
-            var times = beats.Select(b => b.Sample / fs).ToArray();
-            scores.Add(AfScore.Score(record, reference, fs, times, result.Episodes));
+            return (record, fs, (header.SamplesPerSignal ?? beats[^1].Sample) / fs, beats, AnnotationBeats.Annotations("ltafdb", record, "atr"));
+        }).ToList();
+    });
+
+    private static List<AfScore> Run(AnalysisSettings settings)
+    {
+        var records = s_records.Value;
+        Assert.Equal(42, records.Count);
+        var scores = new ConcurrentBag<AfScore>();
+        Parallel.ForEach(records, r =>
+        {
+            var result = RhythmAnalyser.Analyse(new RhythmInput { Beats = r.Beats, ReferenceRateHz = r.Fs, DurationS = r.DurationS }, settings);
+            var times = r.Beats.Select(b => b.Sample / r.Fs).ToArray();
+            scores.Add(AfScore.Score(r.Record, r.Atr, r.Fs, times, result.Episodes));
         });
 
         return scores.OrderBy(s => s.Record, StringComparer.Ordinal).ToList();
