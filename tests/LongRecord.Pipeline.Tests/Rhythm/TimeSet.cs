@@ -1,4 +1,4 @@
-namespace LongRecord.Analysis.Tests.Rhythm;
+namespace LongRecord.Pipeline.Tests.Rhythm;
 
 /// <summary>A set of time as sorted, disjoint half-open intervals [start, end) in seconds, for episode scoring.</summary>
 public sealed class TimeSet

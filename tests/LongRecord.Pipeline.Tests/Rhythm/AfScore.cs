@@ -2,7 +2,7 @@ using System.Globalization;
 using LongRecord.Analysis.Rhythm;
 using LongRecord.Formats.Wfdb;
 
-namespace LongRecord.Analysis.Tests.Rhythm;
+namespace LongRecord.Pipeline.Tests.Rhythm;
 
 /// <summary>
 /// Duration scoring of AF episodes in the manner of ANSI/AAMI EC57 (episode comparison, §3.2 and §4.3.3, from
