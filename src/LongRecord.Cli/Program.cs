@@ -15,6 +15,7 @@ public static class Program
             InspectCommand.Create(stdout, stderr),
             SynthCommand.Create(stdout, stderr),
             SummariseCommand.Create(stdout, stderr),
+            SettingsCommand.Create(stdout, stderr),
             DemoCommand.Create(stdout, stderr),
         };
         var parse = root.Parse(args);

@@ -1,5 +1,7 @@
 using LongRecord.Analysis.Beats;
 using LongRecord.Analysis.Quality;
+using LongRecord.Analysis.Rhythm;
+using LongRecord.Analysis.Settings;
 using LongRecord.Formats;
 using LongRecord.Formats.Wfdb;
 using LongRecord.Pipeline.Channels;
@@ -17,24 +19,53 @@ public static class RecordingSummariser
     public static RecordingSummary Summarise(RecordingInput input, string outputRoot, SummaryOptions? options = null, CancellationToken cancellation = default)
     {
         options ??= new SummaryOptions();
-        using var reader = RecordingOpener.Open(input.Path);
-        var info = reader.Info;
-        var analysis = info.HasSignal ? FromSignal(reader, options, cancellation) : FromAnnotationsOnly(reader, options);
+        var a = Analyse(input.Path, options, cancellation);
 
         using var folder = new OutputFolder(Path.Combine(outputRoot, input.OutputName));
-        BeatsCsv.Write(folder.File("beats.csv"), analysis.Beats, analysis.ReferenceRateHz);
-        BeatAnnotations.Write(folder.File($"{input.Name}.{BeatAnnotations.Annotator}"), analysis.Beats);
-        QualityCsv.Write(folder.File("quality.csv"), analysis.Quality);
+        BeatsCsv.Write(folder.File("beats.csv"), a.Beats, a.ReferenceRateHz);
+        BeatAnnotations.Write(folder.File($"{input.Name}.{BeatAnnotations.Annotator}"), a.Beats);
+        QualityCsv.Write(folder.File("quality.csv"), a.Quality);
+        CsvTable.Write(folder.File("hourly.csv"), RhythmRows.TrendColumns, RhythmRows.Trend(a.Rhythm));
+        CsvTable.Write(folder.File("episodes.csv"), RhythmRows.EpisodeColumns, RhythmRows.Episodes(a.Rhythm));
+        var description = new RecordingDescription(input.Name, a.Info.FormatDetail, a.Info.StartDateTime, a.DurationS, a.ReferenceRateHz,
+            a.LeadLabels, a.BeatSource, a.Info.HasSignal);
+        SummaryJson.Write(folder.File("summary.json"), description, a.Rhythm, a.Settings);
         folder.Commit();
-        return new RecordingSummary(input.Name, folder.FinalPath, analysis.DurationS, analysis.ReferenceRateHz, analysis.Leads, analysis.Beats.Count, analysis.BeatSource, info.HasSignal);
+        return new RecordingSummary(input.Name, folder.FinalPath, a.DurationS, a.ReferenceRateHz, a.LeadLabels.Count, a.Beats.Count, a.BeatSource, a.Info.HasSignal)
+        {
+            Rhythm = a.Rhythm,
+        };
     }
+
+    /// <summary>Reads and analyses one recording (beats, quality, rhythm) without writing anything.</summary>
+    public static RecordingAnalysis Analyse(string path, SummaryOptions? options = null, CancellationToken cancellation = default)
+    {
+        options ??= new SummaryOptions();
+        using var reader = RecordingOpener.Open(path);
+        var info = reader.Info;
+        var beats = info.HasSignal ? FromSignal(reader, options, cancellation) : FromAnnotationsOnly(reader, options);
+        var settings = options.Settings ?? AnalysisSettings.Default;
+        var rhythm = RhythmAnalyser.Analyse(RhythmInputOf(beats, info), settings);
+        return new RecordingAnalysis(info, beats.Beats, beats.Quality, rhythm, settings, beats.ReferenceRateHz, beats.DurationS, beats.LeadLabels, beats.BeatSource);
+    }
+
+    /// <summary>The rhythm stage's view of the beats stage's result: beats, quality stretches and the time base.</summary>
+    private static RhythmInput RhythmInputOf(BeatsResult analysis, RecordingInfo info) => new()
+    {
+        Beats = analysis.Beats.ToArray(),
+        ReferenceRateHz = analysis.ReferenceRateHz,
+        StartDateTime = info.StartDateTime,
+        DurationS = analysis.DurationS,
+        Stretches = analysis.Quality.Select(q => new SignalStretch(q.StartS, q.EndS, q.Analysable, q.Analysable ? "" : q.Reason.Code())).ToArray(),
+    };
 
     private static BeatsResult FromSignal(IRecordingReader reader, SummaryOptions options, CancellationToken cancellation)
     {
         var channels = EcgChannelSelector.Select(reader.Info);
         var given = options.Beats is string spec ? ExternalBeats.Load(spec, reader.Info.FilePath, channels.ReferenceRateHz) : null;
         var analyser = DetectBeats(reader, channels, options.BlockSamples, cancellation, given);
-        return new BeatsResult(analyser.Beats, analyser.Quality, channels.ReferenceRateHz, reader.Info.DurationS, channels.Indices.Length, given?.Source ?? "detected");
+        var labels = channels.Indices.Select(i => reader.Info.Channels[i].Label).ToArray();
+        return new BeatsResult(analyser.Beats, analyser.Quality, channels.ReferenceRateHz, reader.Info.DurationS, labels, given?.Source ?? "detected");
     }
 
     // No signal (a header whose signal file is absent, or one that declares no signals): beats from annotations only.
@@ -53,7 +84,7 @@ public static class RecordingSummariser
         var duration = Math.Max(info.DurationS, (given.LastAnnotationSample + 1) / fRef);
         // No signal, so no verdict on it: the whole recording is one stretch, analysable as far as the annotations go.
         var whole = new QualityStretch(0, (long)Math.Round(duration * fRef), 0, duration, true, QualityReason.Ok);
-        return new BeatsResult(BeatsFromAnnotations.Build(given, fRef), [whole], fRef, duration, 0, given.Source);
+        return new BeatsResult(BeatsFromAnnotations.Build(given, fRef), [whole], fRef, duration, [], given.Source);
     }
 
     /// <summary>Streams the chosen channels through the beats stage.</summary>
@@ -74,5 +105,5 @@ public static class RecordingSummariser
         return analyser;
     }
 
-    private sealed record BeatsResult(IReadOnlyList<Beat> Beats, IReadOnlyList<QualityStretch> Quality, double ReferenceRateHz, double DurationS, int Leads, string BeatSource);
+    private sealed record BeatsResult(IReadOnlyList<Beat> Beats, IReadOnlyList<QualityStretch> Quality, double ReferenceRateHz, double DurationS, IReadOnlyList<string> LeadLabels, string BeatSource);
 }

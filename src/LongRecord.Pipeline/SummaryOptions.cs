@@ -11,4 +11,7 @@ public sealed record SummaryOptions
     /// this file (WFDB annotations or a CSV of R times) instead of detecting them; null detects.
     /// </summary>
     public string? Beats { get; init; }
+
+    /// <summary>Every analysis threshold (from <c>--settings PATH</c>); null uses the documented defaults.</summary>
+    public LongRecord.Analysis.Settings.AnalysisSettings? Settings { get; init; }
 }

@@ -59,6 +59,20 @@ public static class Program
         }
 
         Console.WriteLine("  stages of the last run: " + BeatsBenchmarks.LastTimings);
+        var day = RhythmBenchmarks.DayOfBeats();
+        LongRecord.Analysis.Rhythm.RhythmAnalyser.Analyse(day);
+        var rhythmBest = double.MaxValue;
+        var allocated = 0L;
+        for (var i = 0; i < 5; i++)
+        {
+            var before = GC.GetAllocatedBytesForCurrentThread();
+            var sw = Stopwatch.StartNew();
+            LongRecord.Analysis.Rhythm.RhythmAnalyser.Analyse(day);
+            rhythmBest = Math.Min(rhythmBest, sw.Elapsed.TotalSeconds);
+            allocated = GC.GetAllocatedBytesForCurrentThread() - before;
+        }
+
+        Console.WriteLine(FormattableString.Invariant($"benchmark rhythm stage, one day ({day.Beats.Length} beats): {rhythmBest:F3} s, {allocated / (double)day.Beats.Length:F1} bytes allocated per beat (best of 5)"));
         var n = 2 * 2 * 3600 * 250.0;
         Console.WriteLine(FormattableString.Invariant($"benchmark beats stage, 2 h two-lead 250 Hz demo: {n / fastest / 1e6:F1} M samples/s = {fastest * 12:F2} s per 24 h (best of 3, one thread)"));
     }

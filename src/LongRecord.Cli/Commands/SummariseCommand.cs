@@ -1,5 +1,6 @@
 using System.CommandLine;
 using System.Globalization;
+using LongRecord.Analysis.Settings;
 using LongRecord.Formats;
 using LongRecord.Pipeline;
 using LongRecord.Pipeline.Inputs;
@@ -17,14 +18,38 @@ public static class SummariseCommand
         var inputs = new Argument<string[]>("INPUT") { Description = "Recordings, or folders to search for them (WFDB records by their headers; EDF, BDF, ISHNE, CSV by content)", Arity = ArgumentArity.OneOrMore }.RejectUnknownOptions();
         var output = new Option<DirectoryInfo>("--out", "-o") { Description = "Output folder: one sub-folder per recording", Required = true };
         var beats = new Option<string?>("--beats") { Description = "Take beats from an annotation file instead of detecting them: an annotator beside each record's header (qrs, atr, ecg) or a file (WFDB annotations, or a CSV of R times with a time_s or sample column)" };
+        var settings = new Option<FileInfo?>("--settings") { Description = "JSON file of analysis thresholds (tachycardia rate, pause lengths, minimum AF episode, windows…); every problem in it is listed before any recording is read. Default: the documented values" };
         var block = new Option<int?>("--block-seconds") { Description = "Seconds of signal read and analysed at a time (results do not depend on it; default about 4 min at 250 Hz)", Hidden = true };
-        var cmd = new Command("summarise", "Analyse recordings: beats (beats.csv, a WFDB annotation file) per recording") { inputs, output, beats, block };
+        var cmd = new Command("summarise", "Analyse recordings: beats (beats.csv, a WFDB annotation file) per recording") { inputs, output, beats, settings, block };
         cmd.SetAction(parse => CommandRunner.Run(stderr, () =>
-            Run(parse.GetValue(inputs)!, parse.GetValue(output)!.ToString(), parse.GetValue(beats), parse.GetValue(block), stdout, stderr)));
+            Run(parse.GetValue(inputs)!, parse.GetValue(output)!.ToString(), parse.GetValue(beats), LoadSettings(parse.GetValue(settings)), parse.GetValue(block), stdout, stderr)));
         return cmd;
     }
 
-    public static ExitCode Run(IReadOnlyList<string> inputs, string outputRoot, string? beats, int? blockSeconds, TextWriter stdout, TextWriter stderr)
+    /// <summary>Reads the settings file; a missing file or any problem in it is a user error listing every problem.</summary>
+    public static AnalysisSettings? LoadSettings(FileInfo? file)
+    {
+        if (file is null)
+        {
+            return null;
+        }
+
+        if (!file.Exists)
+        {
+            throw new UserInputException($"{file}: settings file not found");
+        }
+
+        try
+        {
+            return AnalysisSettings.Load(File.ReadAllText(file.FullName), file.ToString());
+        }
+        catch (AnalysisSettingsException e)
+        {
+            throw new UserInputException(e.Message);
+        }
+    }
+
+    public static ExitCode Run(IReadOnlyList<string> inputs, string outputRoot, string? beats, AnalysisSettings? settings, int? blockSeconds, TextWriter stdout, TextWriter stderr)
     {
         var found = RecordingDiscovery.Find(inputs);
         if (found.Count == 0)
@@ -37,7 +62,7 @@ public static class SummariseCommand
         {
             try
             {
-                var options = new SummaryOptions { Beats = beats };
+                var options = new SummaryOptions { Beats = beats, Settings = settings };
                 if (blockSeconds is int s)
                 {
                     options = options with { BlockSamples = Math.Max(1, s * 250) };

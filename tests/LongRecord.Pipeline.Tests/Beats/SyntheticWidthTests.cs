@@ -27,7 +27,7 @@ public sealed class SyntheticWidthTests(ITestOutputHelper output)
         using var folder = new TempFolder("widths");
         foreach (var name in s_scenarios)
         {
-            var scenario = ScenarioLoader.Load(ScenarioPath(name));
+            var scenario = ScenarioLoader.Load(Scenarios.Path(name));
             var rec = SyntheticRecording.Create(scenario);
             var paths = SyntheticRecordingExport.Write(rec, folder.Path(name + ".edf"));
             using var reader = RecordingOpener.Open(paths.Edf);
@@ -65,19 +65,5 @@ public sealed class SyntheticWidthTests(ITestOutputHelper output)
         FiguresReport.Add("9a delineation synthetic widths", line);
         Assert.True(median <= 8, line);
         Assert.True(100.0 * agree / total >= 98, line);
-    }
-
-    private static string ScenarioPath(string name)
-    {
-        for (var d = new DirectoryInfo(AppContext.BaseDirectory); d is not null; d = d.Parent)
-        {
-            var p = Path.Combine(d.FullName, "fixtures", "scenarios", name + ".json");
-            if (File.Exists(p))
-            {
-                return p;
-            }
-        }
-
-        throw new FileNotFoundException($"fixtures/scenarios/{name}.json not found above {AppContext.BaseDirectory}");
     }
 }

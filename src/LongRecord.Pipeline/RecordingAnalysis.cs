@@ -1,0 +1,19 @@
+using LongRecord.Analysis.Beats;
+using LongRecord.Analysis.Quality;
+using LongRecord.Analysis.Rhythm;
+using LongRecord.Analysis.Settings;
+using LongRecord.Formats;
+
+namespace LongRecord.Pipeline;
+
+/// <summary>Everything the analysis found in one recording: the single result object every output is written from.</summary>
+public sealed record RecordingAnalysis(
+    RecordingInfo Info,
+    IReadOnlyList<Beat> Beats,
+    IReadOnlyList<QualityStretch> Quality,
+    RhythmResult Rhythm,
+    AnalysisSettings Settings,
+    double ReferenceRateHz,
+    double DurationS,
+    IReadOnlyList<string> LeadLabels,
+    string BeatSource);
