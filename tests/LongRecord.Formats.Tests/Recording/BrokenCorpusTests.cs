@@ -58,10 +58,21 @@ public sealed class BrokenCorpusTests
         if (c.ExpectedByteOffset is long offset)
         {
             Assert.Equal(offset, e.ByteOffset);
+            Assert.EndsWith($" at byte {offset}", e.Message);
         }
 
         // Nothing is written beside a file that is read.
         Assert.Equal(before, Directory.GetFiles(folder.FullPath).Order().ToArray());
+    }
+
+    [Fact]
+    public void EveryFormat_ContributesItsShare()
+    {
+        var cases = All().ToList();
+        foreach (var (prefix, least) in new[] { ("edf-", 12), ("wfdb-", 12), ("ishne-", 7), ("csv-", 5) })
+        {
+            Assert.True(cases.Count(c => c.Name.StartsWith(prefix, StringComparison.Ordinal)) >= least, prefix);
+        }
     }
 
     [Fact]
