@@ -284,39 +284,85 @@ public sealed partial class QrsDetector
     }
 
     // The decision stage, sample by sample over the chunk the front end has just written: a fiducial mark 80 ms back
-    // (it needs the fused signal 80 ms either side), then search-back when a beat is overdue.
+    // (it needs the fused signal 80 ms either side), then search-back when a beat is overdue. Most samples are neither
+    // a local peak of the fused signal nor due for search-back, and change nothing: those are passed over in a tight
+    // loop.
     private void Decide(int count)
     {
-        for (var i = 0; i < count; i++)
+        var end = _n + count;
+        while (_n < end)
         {
-            if (_learned)
+            DecideSample(end);
+            if (_learned && _n - _peakHalfWidth >= _learnSamples)
             {
-                if (_n >= _fusedUntil)
+                var limit = Math.Min(end, _fusedUntil);
+                if (_searchBackDue < long.MaxValue)
                 {
-                    FuseAhead(count - i);
+                    limit = Math.Min(limit, _searchBackDue + _peakHalfWidth);
                 }
 
-                var m = _n - _peakHalfWidth;
-                var ms = _slot - _peakHalfWidth;
-                ms = ms < 0 ? ms + _ring : ms;
-                if (m >= _learnSamples && IsLocalPeak(ms))
-                {
-                    CandidateAt(m, ms);
-                }
-
-                if (m >= _searchBackDue)
-                {
-                    SearchBack(m);
-                }
+                PassQuietSamples(limit);
             }
-            else if (_n + 1 == _learnSamples)
-            {
-                Learn();
-            }
-
-            _n++;
-            _slot = Next(_slot);
         }
+    }
+
+    private void DecideSample(long end)
+    {
+        if (_learned)
+        {
+            if (_n >= _fusedUntil)
+            {
+                FuseAhead((int)(end - _n));
+            }
+
+            var m = _n - _peakHalfWidth;
+            var ms = _slot - _peakHalfWidth;
+            ms = ms < 0 ? ms + _ring : ms;
+            if (m >= _learnSamples && IsLocalPeak(ms))
+            {
+                CandidateAt(m, ms);
+            }
+
+            if (m >= _searchBackDue)
+            {
+                SearchBack(m);
+            }
+        }
+        else if (_n + 1 == _learnSamples)
+        {
+            Learn();
+        }
+
+        _n++;
+        _slot = Next(_slot);
+    }
+
+    // Moves on while samples before `limit` (fused values known, search-back not due) are not local peaks 80 ms back.
+    private void PassQuietSamples(long limit)
+    {
+        var fused = _fused;
+        var ring = _ring;
+        var ms = _slot - _peakHalfWidth;
+        ms = ms < 0 ? ms + ring : ms;
+        var previous = fused[ms == 0 ? ring - 1 : ms - 1];
+        var n = _n;
+        while (n < limit)
+        {
+            var v = fused[ms];
+            var next = ms + 1 == ring ? 0 : ms + 1;
+            // One branch, rarely taken: '&' instead of '&&'.
+            if ((v > previous) & (v >= fused[next]))
+            {
+                break;
+            }
+
+            previous = v;
+            ms = next;
+            n++;
+        }
+
+        _slot = (int)((_slot + (n - _n)) % ring);
+        _n = n;
     }
 
     // Band-pass of the paper's front end: the QRS energy band, 5–15 Hz (Pan & Tompkins 1985).
