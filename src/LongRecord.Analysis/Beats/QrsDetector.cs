@@ -35,6 +35,7 @@ public sealed partial class QrsDetector
     private readonly int _chunk;
 
     private readonly BiquadCascade[] _bandPass;
+    private readonly float[] _held;
     private readonly float[][] _derivativeHistory;
     private readonly float[][] _squares;
     private readonly double[] _integralSum;
@@ -90,6 +91,7 @@ public sealed partial class QrsDetector
         _ring = Ms(8000);
         _chunk = Math.Max(1, Ms(1000));
         _bandPass = new BiquadCascade[leads];
+        _held = new float[leads];
         _derivativeHistory = new float[leads][];
         _squares = new float[leads][];
         _integralSum = new double[leads];
@@ -133,6 +135,11 @@ public sealed partial class QrsDetector
     {
         var bp = Scratch(_leads * count);
         block[..bp.Length].CopyTo(bp);
+        for (var k = 0; k < _leads; k++)
+        {
+            HoldThroughGaps(k, bp.Slice(k * count, count));
+        }
+
         BandPass(bp, count);
 
         // The front end runs lead by lead over chunks of at most one second (tight loops); the decisions then run
@@ -171,6 +178,84 @@ public sealed partial class QrsDetector
     private int Next(int slot) => slot + 1 == _ring ? 0 : slot + 1;
 
     private int SlotOf(long t) => (int)(t % _ring);
+
+    // Missing samples (NaN, and any non-finite value) take the lead's last valid value, from its first valid one on,
+    // as the conditioner holds them through its filters: one NaN would otherwise stay in the band-pass state and the
+    // running sum for the rest of the recording, and every later sample would pass as a fiducial mark. The quality
+    // monitor marks such stretches unanalysable; the detector only has to come through them.
+    private void HoldThroughGaps(int k, Span<float> lead)
+    {
+        if (lead.IsEmpty)
+        {
+            return;
+        }
+
+        if (_n == 0)
+        {
+            _held[k] = FirstFinite(lead);
+        }
+
+        if (AllFinite(lead))
+        {
+            _held[k] = lead[^1];
+            return;
+        }
+
+        var held = _held[k];
+        for (var i = 0; i < lead.Length; i++)
+        {
+            if (float.IsFinite(lead[i]))
+            {
+                held = lead[i];
+            }
+            else
+            {
+                lead[i] = held;
+            }
+        }
+
+        _held[k] = held;
+    }
+
+    private static float FirstFinite(ReadOnlySpan<float> x)
+    {
+        foreach (var v in x)
+        {
+            if (float.IsFinite(v))
+            {
+                return v;
+            }
+        }
+
+        return 0;
+    }
+
+    private static bool AllFinite(ReadOnlySpan<float> x)
+    {
+        var i = 0;
+        if (Vector.IsHardwareAccelerated)
+        {
+            // x − x is 0 for a finite value, NaN for NaN and ±∞.
+            for (; i + Vector<float>.Count <= x.Length; i += Vector<float>.Count)
+            {
+                var v = new Vector<float>(x[i..]);
+                if (!Vector.EqualsAll(v - v, Vector<float>.Zero))
+                {
+                    return false;
+                }
+            }
+        }
+
+        for (; i < x.Length; i++)
+        {
+            if (!float.IsFinite(x[i]))
+            {
+                return false;
+            }
+        }
+
+        return true;
+    }
 
     // Band-pass of the paper, two leads at a time (one vector, the same arithmetic as lead by lead).
     private void BandPass(Span<float> leads, int count)
