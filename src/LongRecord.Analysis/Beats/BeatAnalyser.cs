@@ -16,7 +16,7 @@ public sealed class BeatAnalyser
 {
     private readonly double _fs;
     private readonly int _leads;
-    private readonly EcgConditioner[] _conditioners;
+    private readonly LeadSetConditioner _conditioner;
     private readonly QrsDetector _detector;
     private readonly SignalRing _ring;
     private readonly int _pre;
@@ -56,11 +56,7 @@ public sealed class BeatAnalyser
         _givenClasses = givenClasses;
         _fs = samplingRateHz;
         _leads = leads;
-        _conditioners = new EcgConditioner[leads];
-        for (var k = 0; k < leads; k++)
-        {
-            _conditioners[k] = new EcgConditioner(samplingRateHz);
-        }
+        _conditioner = new LeadSetConditioner(samplingRateHz, leads);
 
         _detector = new QrsDetector(samplingRateHz, leads);
         _classifier = new BeatClassifier(samplingRateHz, leads);
@@ -113,10 +109,7 @@ public sealed class BeatAnalyser
 
         var t0 = Stopwatch.GetTimestamp();
         rawStep.CopyTo(conditioned);
-        for (var k = 0; k < _leads; k++)
-        {
-            _conditioners[k].Process(conditioned.Slice(k * count, count));
-        }
+        _conditioner.Process(conditioned, count);
 
         var t1 = Stopwatch.GetTimestamp();
         _quality.Process(rawStep, conditioned, count);

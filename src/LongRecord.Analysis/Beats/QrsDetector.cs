@@ -1,3 +1,4 @@
+using System.Numerics;
 using LongRecord.Analysis.Conditioning;
 
 namespace LongRecord.Analysis.Beats;
@@ -11,9 +12,16 @@ namespace LongRecord.Analysis.Beats;
 /// quality before fusion, so a beat clear in one lead is found when another lead is noisy; levels are medians of the
 /// last eight peaks (Hamilton &amp; Tompkins 1986 found medians more robust than running means).
 /// </summary>
-public sealed class QrsDetector
+public sealed partial class QrsDetector
 {
     private const int History = 8;
+
+    // Samples of history the five-point derivative needs.
+    private const int DerivativeOrder = 4;
+
+    // Fused values are computed a few samples ahead with the leads' current levels; a beat changes the levels, and
+    // the values after it are computed again (our choice: short enough that little is recomputed).
+    private const int FuseBatch = 32;
 
     private readonly double _fs;
     private readonly int _leads;
@@ -24,15 +32,20 @@ public sealed class QrsDetector
     private readonly int _delay;
     private readonly int _learnSamples;
     private readonly int _ring;
+    private readonly int _chunk;
 
     private readonly BiquadCascade[] _bandPass;
+    private readonly float[] _held;
     private readonly float[][] _derivativeHistory;
-    private readonly float[][] _squaredRing;
+    private readonly float[][] _squares;
     private readonly double[] _integralSum;
-    private readonly float[][] _bandPassed;
+    private readonly float[] _chunkSlopes;
+    private readonly double[] _chunkSums;
+    private readonly float[] _chunkIntegrated;
     private readonly float[][] _slope;
     private readonly float[][] _integrated;
     private readonly float[] _fused;
+    private readonly double[] _fuseSums = new double[FuseBatch];
 
     private readonly double[] _leadLevel;
     private readonly double[] _leadNoise;
@@ -51,14 +64,19 @@ public sealed class QrsDetector
 
     private long _n;
     private int _slot;
-    private readonly int[] _windowSlots;
-    private readonly int _chunk;
     private bool _learned;
+    private long _fusedUntil;
     private double _spk;
     private double _npk;
     private double _rrAverage;
-    private Candidate? _last;
+    private long _lastEmitted = -1;
+
+    // The last QRS mark (final or still open to a larger mark within the refractory period), and the first sample at
+    // which search-back is due for it: 1.66 average RR after it.
+    private Candidate _last;
+    private bool _hasLast;
     private bool _lastFinal = true;
+    private long _searchBackDue = long.MaxValue;
 
     public QrsDetector(double samplingRateHz, int leads)
     {
@@ -72,12 +90,14 @@ public sealed class QrsDetector
         _learnSamples = Ms(2000);
         _ring = Ms(8000);
         _chunk = Math.Max(1, Ms(1000));
-        _windowSlots = new int[leads];
         _bandPass = new BiquadCascade[leads];
+        _held = new float[leads];
         _derivativeHistory = new float[leads][];
-        _squaredRing = new float[leads][];
+        _squares = new float[leads][];
         _integralSum = new double[leads];
-        _bandPassed = new float[leads][];
+        _chunkSlopes = new float[_chunk];
+        _chunkSums = new double[_chunk];
+        _chunkIntegrated = new float[_chunk];
         _slope = new float[leads][];
         _integrated = new float[leads][];
         _fused = new float[_ring];
@@ -87,9 +107,8 @@ public sealed class QrsDetector
         for (var k = 0; k < leads; k++)
         {
             _bandPass[k] = new BiquadCascade(new NWaves.Filters.Butterworth.BandPassFilter(BandLowHz / _fs, BandHighHz / _fs, 2).Tf);
-            _derivativeHistory[k] = new float[4];
-            _squaredRing[k] = new float[_window];
-            _bandPassed[k] = new float[_ring];
+            _derivativeHistory[k] = new float[DerivativeOrder + _chunk];
+            _squares[k] = new float[_window + _chunk];
             _slope[k] = new float[_ring];
             _integrated[k] = new float[_ring];
             _leadWeight[k] = 1;
@@ -111,30 +130,20 @@ public sealed class QrsDetector
     /// <summary>Samples fed so far.</summary>
     public long SamplesProcessed => _n;
 
-
     /// <summary>Feeds <paramref name="count"/> samples of every lead, lead-major (lead k at k × count).</summary>
     public void Process(ReadOnlySpan<float> block, int count)
     {
-        if (_scratch.Length < block.Length)
-        {
-            _scratch = new float[block.Length];
-        }
-
-        var bp = _scratch.AsSpan(0, _leads * count);
+        var bp = Scratch(_leads * count);
         block[..bp.Length].CopyTo(bp);
         for (var k = 0; k < _leads; k++)
         {
-            var lead = bp.Slice(k * count, count);
-            if (_n == 0 && count > 0)
-            {
-                _bandPass[k].SettleAt(lead[0]);
-            }
-
-            _bandPass[k].Process(lead);
+            HoldThroughGaps(k, bp.Slice(k * count, count));
         }
 
-        // The front end runs lead by lead over chunks of at most one second (tight loops); the fusion and the
-        // decisions then run sample by sample, reading the rings no further back than they hold.
+        BandPass(bp, count);
+
+        // The front end runs lead by lead over chunks of at most one second (tight loops); the decisions then run
+        // sample by sample, reading the rings no further back than they hold.
         for (var done = 0; done < count;)
         {
             var chunk = Math.Min(count - done, _chunk);
@@ -143,24 +152,7 @@ public sealed class QrsDetector
                 FrontEnd(k, bp.Slice(k * count + done, chunk));
             }
 
-            for (var i = 0; i < chunk; i++)
-            {
-                var slot = _slot;
-                if (_learned)
-                {
-                    _fused[slot] = (float)Fuse(slot);
-                    FindCandidate();
-                    SearchBackIfDue(_n - _peakHalfWidth);
-                }
-                else if (_n + 1 == _learnSamples)
-                {
-                    Learn();
-                }
-
-                _n++;
-                _slot = _slot + 1 == _ring ? 0 : _slot + 1;
-            }
-
+            Decide(chunk);
             done += chunk;
         }
     }
@@ -173,46 +165,289 @@ public sealed class QrsDetector
 
     private int Ms(double ms) => (int)Math.Round(ms * 0.001 * _fs);
 
-    // Derivative, squaring and moving-window integration of the paper, for one lead over a chunk whose first sample
-    // is sample _n; results go into the rings at the chunk's slots.
-    private void FrontEnd(int k, ReadOnlySpan<float> x)
+    private Span<float> Scratch(int length)
     {
-        var h = _derivativeHistory[k];
-        float h0 = h[0], h1 = h[1], h2 = h[2], h3 = h[3];
-        var squared = _squaredRing[k];
-        var bandPassed = _bandPassed[k];
-        var slope = _slope[k];
-        var integrated = _integrated[k];
-        var sum = _integralSum[k];
-        var w = _windowSlots[k];
-        var slot = _slot;
-        var scale = (float)(_fs / 8.0);
-        var inverseWindow = 1.0 / _window;
-        for (var i = 0; i < x.Length; i++)
+        if (_scratch.Length < length)
         {
-            var v = x[i];
-            // Five-point derivative of the paper: y = (2x[n] + x[n−1] − x[n−3] − 2x[n−4]) / 8 (per sample interval).
-            var d = (2 * v + h0 - h2 - 2 * h3) * scale;
-            h3 = h2;
-            h2 = h1;
-            h1 = h0;
-            h0 = v;
-            var sq = d * d;
-            sum += sq - squared[w];
-            squared[w] = sq;
-            w = w + 1 == _window ? 0 : w + 1;
-            bandPassed[slot] = v;
-            slope[slot] = Math.Abs(d);
-            integrated[slot] = (float)Math.Max(0, sum * inverseWindow);
-            slot = slot + 1 == _ring ? 0 : slot + 1;
+            _scratch = new float[length];
         }
 
-        h[0] = h0;
-        h[1] = h1;
-        h[2] = h2;
-        h[3] = h3;
+        return _scratch.AsSpan(0, length);
+    }
+
+    private int Next(int slot) => slot + 1 == _ring ? 0 : slot + 1;
+
+    private int SlotOf(long t) => (int)(t % _ring);
+
+    // Missing samples (NaN, and any non-finite value) take the lead's last valid value, from its first valid one on,
+    // as the conditioner holds them through its filters: one NaN would otherwise stay in the band-pass state and the
+    // running sum for the rest of the recording, and every later sample would pass as a fiducial mark. The quality
+    // monitor marks such stretches unanalysable; the detector only has to come through them.
+    private void HoldThroughGaps(int k, Span<float> lead)
+    {
+        if (lead.IsEmpty)
+        {
+            return;
+        }
+
+        if (_n == 0)
+        {
+            _held[k] = FirstFinite(lead);
+        }
+
+        if (AllFinite(lead))
+        {
+            _held[k] = lead[^1];
+            return;
+        }
+
+        var held = _held[k];
+        for (var i = 0; i < lead.Length; i++)
+        {
+            if (float.IsFinite(lead[i]))
+            {
+                held = lead[i];
+            }
+            else
+            {
+                lead[i] = held;
+            }
+        }
+
+        _held[k] = held;
+    }
+
+    private static float FirstFinite(ReadOnlySpan<float> x)
+    {
+        foreach (var v in x)
+        {
+            if (float.IsFinite(v))
+            {
+                return v;
+            }
+        }
+
+        return 0;
+    }
+
+    private static bool AllFinite(ReadOnlySpan<float> x)
+    {
+        var i = 0;
+        if (Vector.IsHardwareAccelerated)
+        {
+            // x − x is 0 for a finite value, NaN for NaN and ±∞.
+            for (; i + Vector<float>.Count <= x.Length; i += Vector<float>.Count)
+            {
+                var v = new Vector<float>(x[i..]);
+                if (!Vector.EqualsAll(v - v, Vector<float>.Zero))
+                {
+                    return false;
+                }
+            }
+        }
+
+        for (; i < x.Length; i++)
+        {
+            if (!float.IsFinite(x[i]))
+            {
+                return false;
+            }
+        }
+
+        return true;
+    }
+
+    // Band-pass of the paper, two leads at a time (one vector, the same arithmetic as lead by lead).
+    private void BandPass(Span<float> leads, int count)
+    {
+        if (_n == 0 && count > 0)
+        {
+            for (var k = 0; k < _leads; k++)
+            {
+                _bandPass[k].SettleAt(leads[k * count]);
+            }
+        }
+
+        var k0 = 0;
+        for (; k0 + 1 < _leads; k0 += 2)
+        {
+            _bandPass[k0].ProcessWith(_bandPass[k0 + 1], leads.Slice(k0 * count, count), leads.Slice((k0 + 1) * count, count));
+        }
+
+        if (k0 < _leads)
+        {
+            _bandPass[k0].Process(leads.Slice(k0 * count, count));
+        }
+    }
+
+    // Derivative, squaring and moving-window integration of the paper, for one lead over a chunk whose first sample
+    // is sample _n; results go into the rings at the chunk's slots. The derivative and the squares are vector work; the
+    // running sum is one chain of additions, kept in the scalar order so that every value is the same.
+    private void FrontEnd(int k, ReadOnlySpan<float> x)
+    {
+        var n = x.Length;
+        // The lead's last four band-passed samples, then this chunk's.
+        var history = _derivativeHistory[k];
+        x.CopyTo(history.AsSpan(DerivativeOrder));
+        // The squares of the last window's samples, then this chunk's.
+        var squares = _squares[k];
+        var window = _window;
+        var slopes = _chunkSlopes.AsSpan(0, n);
+        Derivative(history.AsSpan(0, DerivativeOrder + n), (float)(_fs / 8.0), slopes, squares.AsSpan(window, n));
+
+        var sums = _chunkSums.AsSpan(0, n);
+        var sum = _integralSum[k];
+        for (var i = 0; i < n; i++)
+        {
+            sum += squares[window + i] - squares[i];
+            sums[i] = sum;
+        }
+
         _integralSum[k] = sum;
-        _windowSlots[k] = w;
+        var integrated = _chunkIntegrated.AsSpan(0, n);
+        Integrate(sums, 1.0 / window, integrated);
+        ToRing(slopes, _slope[k]);
+        ToRing(integrated, _integrated[k]);
+        history.AsSpan(n, DerivativeOrder).CopyTo(history);
+        squares.AsSpan(n, window).CopyTo(squares);
+    }
+
+    // Five-point derivative of the paper, y = (2x[n] + x[n−1] − x[n−3] − 2x[n−4]) / 8 per sample interval, of x[4..]
+    // (x[0..4] is history); its magnitude and its square.
+    private static void Derivative(ReadOnlySpan<float> x, float scale, Span<float> slopes, Span<float> squares)
+    {
+        var i = 0;
+        if (Vector.IsHardwareAccelerated)
+        {
+            var width = Vector<float>.Count;
+            var scales = new Vector<float>(scale);
+            for (; i + width <= slopes.Length; i += width)
+            {
+                var d = (2 * new Vector<float>(x[(i + 4)..]) + new Vector<float>(x[(i + 3)..]) - new Vector<float>(x[(i + 1)..]) - 2 * new Vector<float>(x[i..])) * scales;
+                Vector.Abs(d).CopyTo(slopes[i..]);
+                (d * d).CopyTo(squares[i..]);
+            }
+        }
+
+        for (; i < slopes.Length; i++)
+        {
+            var d = (2 * x[i + 4] + x[i + 3] - x[i + 1] - 2 * x[i]) * scale;
+            slopes[i] = Math.Abs(d);
+            squares[i] = d * d;
+        }
+    }
+
+    // The moving-window integral: the running sum of the window's squares over the window's length, never below 0.
+    private static void Integrate(ReadOnlySpan<double> sums, double inverseWindow, Span<float> integrated)
+    {
+        var i = 0;
+        if (Vector.IsHardwareAccelerated)
+        {
+            var width = Vector<float>.Count;
+            var half = width / 2;
+            var factor = new Vector<double>(inverseWindow);
+            for (; i + width <= sums.Length; i += width)
+            {
+                var low = Vector.Max(Vector<double>.Zero, new Vector<double>(sums[i..]) * factor);
+                var high = Vector.Max(Vector<double>.Zero, new Vector<double>(sums[(i + half)..]) * factor);
+                Vector.Narrow(low, high).CopyTo(integrated[i..]);
+            }
+        }
+
+        for (; i < sums.Length; i++)
+        {
+            integrated[i] = (float)Math.Max(0, sums[i] * inverseWindow);
+        }
+    }
+
+    // Copies a chunk's values into a ring from the current slot on.
+    private void ToRing(ReadOnlySpan<float> values, float[] ring)
+    {
+        var first = Math.Min(values.Length, _ring - _slot);
+        values[..first].CopyTo(ring.AsSpan(_slot));
+        values[first..].CopyTo(ring);
+    }
+
+    // The decision stage, sample by sample over the chunk the front end has just written: a fiducial mark 80 ms back
+    // (it needs the fused signal 80 ms either side), then search-back when a beat is overdue. Most samples are neither
+    // a local peak of the fused signal nor due for search-back, and change nothing: those are passed over in a tight
+    // loop.
+    private void Decide(int count)
+    {
+        var end = _n + count;
+        while (_n < end)
+        {
+            DecideSample(end);
+            if (_learned && _n - _peakHalfWidth >= _learnSamples)
+            {
+                var limit = Math.Min(end, _fusedUntil);
+                if (_searchBackDue < long.MaxValue)
+                {
+                    limit = Math.Min(limit, _searchBackDue + _peakHalfWidth);
+                }
+
+                PassQuietSamples(limit);
+            }
+        }
+    }
+
+    private void DecideSample(long end)
+    {
+        if (_learned)
+        {
+            if (_n >= _fusedUntil)
+            {
+                FuseAhead((int)(end - _n));
+            }
+
+            var m = _n - _peakHalfWidth;
+            var ms = _slot - _peakHalfWidth;
+            ms = ms < 0 ? ms + _ring : ms;
+            if (m >= _learnSamples && IsLocalPeak(ms))
+            {
+                CandidateAt(m, ms);
+            }
+
+            if (m >= _searchBackDue)
+            {
+                SearchBack(m);
+            }
+        }
+        else if (_n + 1 == _learnSamples)
+        {
+            Learn();
+        }
+
+        _n++;
+        _slot = Next(_slot);
+    }
+
+    // Moves on while samples before `limit` (fused values known, search-back not due) are not local peaks 80 ms back.
+    private void PassQuietSamples(long limit)
+    {
+        var fused = _fused;
+        var ring = _ring;
+        var ms = _slot - _peakHalfWidth;
+        ms = ms < 0 ? ms + ring : ms;
+        var previous = fused[ms == 0 ? ring - 1 : ms - 1];
+        var n = _n;
+        while (n < limit)
+        {
+            var v = fused[ms];
+            var next = ms + 1 == ring ? 0 : ms + 1;
+            // One branch, rarely taken: '&' instead of '&&'.
+            if ((v > previous) & (v >= fused[next]))
+            {
+                break;
+            }
+
+            previous = v;
+            ms = next;
+            n++;
+        }
+
+        _slot = (int)((_slot + (n - _n)) % ring);
+        _n = n;
     }
 
     // Band-pass of the paper's front end: the QRS energy band, 5–15 Hz (Pan & Tompkins 1985).
@@ -222,305 +457,4 @@ public sealed class QrsDetector
     // Moving-window integration: the paper uses 150 ms at 200 Hz; 120 ms separated neighbouring complexes better on
     // MITDB (our measurement, MITDB all records).
     private const double IntegrationWindowMs = 120;
-
-    // Each lead's normalised integrated signal is clipped here so an artefact on one lead cannot outweigh the others
-    // (our choice, no source).
-    private const double LeadCap = 1.5;
-
-    // Threshold I = NPKI + 0.3125 (SPKI − NPKI): Hamilton & Tompkins 1986's detection threshold coefficient (from memory).
-    private const double ThresholdCoefficient = 0.3125;
-
-    // How fast a lead's noise estimate rises when its noise grows (it falls at 1/8 per beat, the paper's level
-    // update); our choice, no source.
-    private const double NoiseAttack = 0.75;
-
-    // The fiducial is sought over two integration windows before the integrated peak, so that broad and paced
-    // complexes, whose energy comes late, still place it inside the complex (our measurement on MITDB).
-    private const int FiducialWindows = 2;
-
-    private double Fuse(int slot)
-    {
-        double f = 0, wsum = 0;
-        for (var k = 0; k < _leads; k++)
-        {
-            // Clipped so that an artefact on one lead cannot outweigh the others.
-            // Compression x^0.75 = sqrt(x·sqrt(x)).
-            var x = _integrated[k][slot] / _leadLevel[k];
-            f += _leadWeight[k] * Math.Min(LeadCap, Math.Sqrt(x * Math.Sqrt(x)));
-            wsum += _leadWeight[k];
-        }
-
-        return f / wsum;
-    }
-
-    private void Learn()
-    {
-        double fmax = 0;
-        for (var k = 0; k < _leads; k++)
-        {
-            double max = 0;
-            for (var i = 0; i < _learnSamples; i++)
-            {
-                max = Math.Max(max, _integrated[k][i % _ring]);
-            }
-
-            _leadLevel[k] = Math.Max(max, 1e-12);
-        }
-
-        for (var i = 0; i < _learnSamples; i++)
-        {
-            _fused[i % _ring] = (float)Fuse(i % _ring);
-            fmax = Math.Max(fmax, _fused[i % _ring]);
-        }
-
-        _spk = 0.5 * fmax;
-        _npk = 0.1 * fmax;
-        _learned = true;
-
-        // The learning period's own beats: judged once the levels exist.
-        for (long m = 1; m + _peakHalfWidth < _learnSamples; m++)
-        {
-            CandidateAt(m, (int)m);
-        }
-    }
-
-    private float F(long t) => _fused[(int)(t % _ring)];
-
-    // A fiducial mark: the largest value of the integrated signal within ±80 ms.
-    private void FindCandidate()
-    {
-        var m = _n - _peakHalfWidth;
-        if (m < _learnSamples)
-        {
-            return;
-        }
-
-        var ms = _slot - _peakHalfWidth;
-        if (ms < 0)
-        {
-            ms += _ring;
-        }
-
-        CandidateAt(m, ms);
-    }
-
-    private void CandidateAt(long m, int ms)
-    {
-        var v = _fused[ms];
-        if (v <= _fused[ms == 0 ? _ring - 1 : ms - 1] || v < _fused[ms + 1 == _ring ? 0 : ms + 1])
-        {
-            return;
-        }
-
-        for (var j = Math.Max(0, m - _peakHalfWidth); j <= m + _peakHalfWidth; j++)
-        {
-            if (j != m && (F(j) > v || (F(j) == v && j < m)))
-            {
-                return;
-            }
-        }
-
-        OnCandidate(new Candidate(m, v, MaxSlope(m)));
-    }
-
-    private double Threshold1 => _npk + ThresholdCoefficient * (_spk - _npk);
-
-    private void OnCandidate(Candidate c)
-    {
-        if (_last is Candidate last && !_lastFinal && c.Position - last.Position <= _refractory)
-        {
-            // Within the refractory period only the larger of two marks can be a QRS.
-            if (c.Value > last.Value)
-            {
-                _last = c;
-            }
-
-            return;
-        }
-
-        if (_last is Candidate l && c.Position - l.Position <= _refractory)
-        {
-            return;
-        }
-
-        if (c.Value > Threshold1)
-        {
-            if (_last is Candidate prev && c.Position - prev.Position < _tWaveLimit && c.Slope < 0.5 * prev.Slope)
-            {
-                Noise(c);
-                return;
-            }
-
-            FinaliseLast();
-            _last = c;
-            _lastFinal = false;
-            _sinceLast.Clear();
-        }
-        else
-        {
-            Noise(c);
-        }
-    }
-
-    private void Noise(Candidate c)
-    {
-        _noisePeaks[_noisePeakCount++ % History] = c.Value;
-        _npk = Median(_noisePeaks, _noisePeakCount);
-        _sinceLast.Add(c);
-    }
-
-    private void SearchBackIfDue(long now)
-    {
-        if (_last is not Candidate last || now - last.Position < 1.66 * _rrAverage)
-        {
-            return;
-        }
-
-        // Threshold II of the paper; it halves for every further two seconds without a beat so that the detector
-        // recovers after an artefact has raised its levels.
-        var overdueS = (now - last.Position - 1.66 * _rrAverage) / _fs;
-        var threshold2 = 0.5 * Threshold1 * Math.Pow(0.5, Math.Max(0, overdueS - 1.0) / 2.0);
-        var best = -1;
-        for (var i = 0; i < _sinceLast.Count; i++)
-        {
-            var p = _sinceLast[i];
-            var tWave = p.Position - last.Position < _tWaveLimit && p.Slope < 0.5 * last.Slope;
-            if (!tWave && p.Position - last.Position > _refractory && p.Value > threshold2 && (best < 0 || p.Value > _sinceLast[best].Value))
-            {
-                best = i;
-            }
-        }
-
-        if (best < 0)
-        {
-            return;
-        }
-
-        var found = _sinceLast[best];
-        _sinceLast.RemoveRange(0, best + 1);
-        _sinceLast.RemoveAll(p => p.Position - found.Position <= _refractory);
-        FinaliseLast();
-        _qrsPeaks[_qrsPeakCount++ % History] = found.Value;
-        _spk = Median(_qrsPeaks, _qrsPeakCount);
-        _last = found;
-        _lastFinal = true;
-        Emit(found, fromSearchBack: true);
-    }
-
-    private void FinaliseLast()
-    {
-        if (_last is Candidate c && !_lastFinal)
-        {
-            _qrsPeaks[_qrsPeakCount++ % History] = c.Value;
-            _spk = Median(_qrsPeaks, _qrsPeakCount);
-            _lastFinal = true;
-            Emit(c, fromSearchBack: false);
-        }
-    }
-
-    private long _lastEmitted = -1;
-
-    private void Emit(Candidate c, bool fromSearchBack)
-    {
-        if (_lastEmitted >= 0)
-        {
-            _rr[_rrCount++ % History] = c.Position - _lastEmitted;
-            _rrAverage = Mean(_rr, _rrCount);
-        }
-
-        UpdateLeads(c.Position);
-        _lastEmitted = c.Position;
-        _output.Add(LocateFiducial(c.Position));
-    }
-
-    private void UpdateLeads(long pos)
-    {
-        for (var k = 0; k < _leads; k++)
-        {
-            double peak = 0;
-            for (var t = Math.Max(0, pos - _window / 2); t <= pos + _window / 2 && t < _n; t++)
-            {
-                peak = Math.Max(peak, _integrated[k][(int)(t % _ring)]);
-            }
-
-            double between = 0;
-            // No further back than the rings hold behind a chunk the front end has already written ahead.
-            var from = Math.Max(Math.Max(0, _lastEmitted + _refractory + _window), pos - _ring + _chunk + _peakHalfWidth + 1);
-            for (var t = from; t < pos - _window; t++)
-            {
-                between = Math.Max(between, _integrated[k][(int)(t % _ring)]);
-            }
-
-            _leadLevel[k] = 0.875 * _leadLevel[k] + 0.125 * Math.Max(peak, 1e-12);
-            var noise = Math.Min(1.0, Math.Sqrt(between / _leadLevel[k]));
-            var a = noise > _leadNoise[k] ? NoiseAttack : 0.125;
-            _leadNoise[k] = (1 - a) * _leadNoise[k] + a * noise;
-            var q = Math.Clamp(1.0 - _leadNoise[k], 0.02, 1.0);
-            _leadWeight[k] = q * q;
-        }
-    }
-
-    private double MaxSlope(long pos)
-    {
-        double best = 0;
-        var from = Math.Max(pos - _window - _delay, (_last?.Position ?? -1) + 1);
-        for (var k = 0; k < _leads; k++)
-        {
-            double m = 0;
-            for (var t = Math.Max(Math.Max(0, from), _n + _chunk - _ring + 1); t <= pos; t++)
-            {
-                m = Math.Max(m, _slope[k][(int)(t % _ring)]);
-            }
-
-            best = Math.Max(best, _leadWeight[k] * m / Math.Sqrt(_leadLevel[k]));
-        }
-
-        return best;
-    }
-
-    // The centre of the QRS slope energy across leads: robust for broad and paced complexes, where the largest
-    // deflection can come late in the complex.
-    private long LocateFiducial(long pos)
-    {
-        double sum = 0, moment = 0;
-        var from = Math.Max(Math.Max(0, pos - FiducialWindows * _window - _delay), _n + _chunk - _ring + 1);
-        for (var t = from; t <= pos; t++)
-        {
-            double e = 0;
-            for (var k = 0; k < _leads; k++)
-            {
-                var v = _slope[k][(int)(t % _ring)];
-                e += _leadWeight[k] * v * v / _leadLevel[k];
-            }
-
-            sum += e;
-            moment += e * (t - from);
-        }
-
-        var at = sum > 0 ? from + (long)Math.Round(moment / sum) : pos;
-        return Math.Max(0, at - _delay);
-    }
-
-    private static double Median(double[] values, int count)
-    {
-        var n = Math.Min(count, values.Length);
-        Span<double> tmp = stackalloc double[n];
-        values.AsSpan(0, n).CopyTo(tmp);
-        tmp.Sort();
-        return n % 2 == 1 ? tmp[n / 2] : 0.5 * (tmp[n / 2 - 1] + tmp[n / 2]);
-    }
-
-    private static double Mean(double[] values, int count)
-    {
-        var n = Math.Min(count, values.Length);
-        double s = 0;
-        for (var i = 0; i < n; i++)
-        {
-            s += values[i];
-        }
-
-        return s / n;
-    }
-
-    private readonly record struct Candidate(long Position, double Value, double Slope);
 }

@@ -1,3 +1,4 @@
+using System.Numerics;
 using NWaves.Filters.Base;
 using NWaves.Filters.Fda;
 
@@ -8,7 +9,7 @@ namespace LongRecord.Analysis.Conditioning;
 /// blocks of any size equals the signal filtered at once. Coefficients come from NWaves' designers (second-order
 /// sections: higher orders in transfer-function form lose precision); the loop is our own.
 /// </summary>
-public sealed class BiquadCascade
+public sealed partial class BiquadCascade
 {
     private readonly double[] _b0;
     private readonly double[] _b1;
@@ -51,57 +52,111 @@ public sealed class BiquadCascade
     /// <remarks>
     /// All sections run inside one loop over the samples: each section's recursion is a chain of dependent
     /// multiply-adds, and interleaving the sections lets the processor overlap the chains (about 3× faster than one
-    /// pass per section over the block, measured on 43 M samples).
+    /// pass per section over the block, measured on 43 M samples). The loop works on doubles converted in bulk before
+    /// and after it: converting each sample inside the loop ties every sample's conversion to the previous sample's
+    /// (the conversion instruction keeps part of its destination register), which joins all the sections' chains into
+    /// one and made the loop about twice as slow.
     /// </remarks>
     public void Process(Span<float> signal)
     {
-        switch (_b0.Length)
+        Span<double> work = stackalloc double[WorkSamples];
+        for (var done = 0; done < signal.Length; done += WorkSamples)
         {
-            case 1:
-                ProcessOne(signal);
-                break;
-            case 2:
-                ProcessTwo(signal);
-                break;
-            case 3:
-                ProcessThree(signal);
-                break;
-            default:
-                ProcessAny(signal);
-                break;
+            var part = signal.Slice(done, Math.Min(WorkSamples, signal.Length - done));
+            var x = work[..part.Length];
+            Widen(part, x);
+            switch (_b0.Length)
+            {
+                case 1:
+                    ProcessOne(x);
+                    break;
+                case 2:
+                    ProcessTwo(x);
+                    break;
+                case 3:
+                    ProcessThree(x);
+                    break;
+                default:
+                    ProcessAny(x);
+                    break;
+            }
+
+            Narrow(x, part);
         }
     }
 
-    private void ProcessOne(Span<float> signal)
+    // Samples per pass of the recursion (a 4 KB buffer on the stack).
+    private const int WorkSamples = 512;
+
+    private static void Widen(ReadOnlySpan<float> from, Span<double> to)
+    {
+        var i = 0;
+        if (Vector.IsHardwareAccelerated)
+        {
+            var width = Vector<float>.Count;
+            for (; i + width <= from.Length; i += width)
+            {
+                Vector.Widen(new Vector<float>(from[i..]), out var low, out var high);
+                low.CopyTo(to[i..]);
+                high.CopyTo(to[(i + width / 2)..]);
+            }
+        }
+
+        for (; i < from.Length; i++)
+        {
+            to[i] = from[i];
+        }
+    }
+
+    // Rounds to the nearest float, as a (float) cast does.
+    private static void Narrow(ReadOnlySpan<double> from, Span<float> to)
+    {
+        var i = 0;
+        if (Vector.IsHardwareAccelerated)
+        {
+            var width = Vector<float>.Count;
+            for (; i + width <= from.Length; i += width)
+            {
+                Vector.Narrow(new Vector<double>(from[i..]), new Vector<double>(from[(i + width / 2)..])).CopyTo(to[i..]);
+            }
+        }
+
+        for (; i < from.Length; i++)
+        {
+            to[i] = (float)from[i];
+        }
+    }
+
+    private void ProcessOne(Span<double> signal)
     {
         double b0 = _b0[0], b1 = _b1[0], b2 = _b2[0], a1 = _a1[0], a2 = _a2[0], z1 = _z1[0], z2 = _z2[0];
         for (var i = 0; i < signal.Length; i++)
         {
-            double x = signal[i];
+            var x = signal[i];
             var y = b0 * x + z1;
             z1 = b1 * x - a1 * y + z2;
             z2 = b2 * x - a2 * y;
-            signal[i] = (float)y;
+            signal[i] = y;
         }
 
         _z1[0] = z1;
         _z2[0] = z2;
     }
 
-    private void ProcessTwo(Span<float> signal)
+    private void ProcessTwo(Span<double> signal)
     {
         double p0 = _b0[0], p1 = _b1[0], p2 = _b2[0], pa1 = _a1[0], pa2 = _a2[0], u1 = _z1[0], u2 = _z2[0];
         double q0 = _b0[1], q1 = _b1[1], q2 = _b2[1], qa1 = _a1[1], qa2 = _a2[1], v1 = _z1[1], v2 = _z2[1];
         for (var i = 0; i < signal.Length; i++)
         {
-            double x = signal[i];
+            var x = signal[i];
             var y = p0 * x + u1;
             u1 = p1 * x - pa1 * y + u2;
             u2 = p2 * x - pa2 * y;
             var z = q0 * y + v1;
             v1 = q1 * y - qa1 * z + v2;
             v2 = q2 * y - qa2 * z;
-            signal[i] = (float)z;
+            signal[i] = z;
         }
 
         _z1[0] = u1;
@@ -110,14 +165,14 @@ public sealed class BiquadCascade
         _z2[1] = v2;
     }
 
-    private void ProcessThree(Span<float> signal)
+    private void ProcessThree(Span<double> signal)
     {
         double p0 = _b0[0], p1 = _b1[0], p2 = _b2[0], pa1 = _a1[0], pa2 = _a2[0], u1 = _z1[0], u2 = _z2[0];
         double q0 = _b0[1], q1 = _b1[1], q2 = _b2[1], qa1 = _a1[1], qa2 = _a2[1], v1 = _z1[1], v2 = _z2[1];
         double r0 = _b0[2], r1 = _b1[2], r2 = _b2[2], ra1 = _a1[2], ra2 = _a2[2], w1 = _z1[2], w2 = _z2[2];
         for (var i = 0; i < signal.Length; i++)
         {
-            double x = signal[i];
+            var x = signal[i];
             var y = p0 * x + u1;
             u1 = p1 * x - pa1 * y + u2;
             u2 = p2 * x - pa2 * y;
@@ -127,7 +182,7 @@ public sealed class BiquadCascade
             var o = r0 * z + w1;
             w1 = r1 * z - ra1 * o + w2;
             w2 = r2 * z - ra2 * o;
-            signal[i] = (float)o;
+            signal[i] = o;
         }
 
         _z1[0] = u1;
@@ -138,7 +193,7 @@ public sealed class BiquadCascade
         _z2[2] = w2;
     }
 
-    private void ProcessAny(Span<float> signal)
+    private void ProcessAny(Span<double> signal)
     {
         var n = _b0.Length;
         Span<double> z1 = stackalloc double[n];
@@ -147,7 +202,7 @@ public sealed class BiquadCascade
         _z2.CopyTo(z2);
         for (var i = 0; i < signal.Length; i++)
         {
-            double x = signal[i];
+            var x = signal[i];
             for (var s = 0; s < n; s++)
             {
                 var y = _b0[s] * x + z1[s];
@@ -156,7 +211,7 @@ public sealed class BiquadCascade
                 x = y;
             }
 
-            signal[i] = (float)x;
+            signal[i] = x;
         }
 
         z1.CopyTo(_z1);

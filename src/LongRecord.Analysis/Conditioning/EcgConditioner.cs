@@ -14,6 +14,7 @@ public sealed class EcgConditioner
     private readonly BiquadCascade _filter;
     private bool _started;
     private float _last;
+    private bool[] _gaps = [];
 
     public EcgConditioner(double samplingRateHz, ConditioningSettings? settings = null)
     {
@@ -35,9 +36,23 @@ public sealed class EcgConditioner
     /// <summary>Conditions <paramref name="signal"/> in place.</summary>
     public void Process(Span<float> signal)
     {
+        var gaps = HoldGaps(signal);
+        _filter.Process(signal);
+        RestoreGaps(signal, gaps);
+    }
+
+    /// <summary>The filter cascade, for <see cref="LeadSetConditioner"/>, which runs two leads' cascades together.</summary>
+    internal BiquadCascade Filter => _filter;
+
+    /// <summary>
+    /// Before filtering: settles the filter on the first block and holds the last valid value through gaps so the
+    /// filters stay finite; returns where the gaps were (empty when there are none).
+    /// </summary>
+    internal ReadOnlySpan<bool> HoldGaps(Span<float> signal)
+    {
         if (signal.IsEmpty)
         {
-            return;
+            return default;
         }
 
         if (!_started)
@@ -49,39 +64,42 @@ public sealed class EcgConditioner
             _started = true;
         }
 
-        // Hold the last valid value through gaps so the filters stay finite; restore NaN afterwards.
-        bool[]? gap = null;
-        if (ContainsNaN(signal))
-        {
-            gap = new bool[signal.Length];
-            for (var i = 0; i < signal.Length; i++)
-            {
-                if (float.IsNaN(signal[i]))
-                {
-                    gap[i] = true;
-                    signal[i] = _last;
-                }
-                else
-                {
-                    _last = signal[i];
-                }
-            }
-        }
-        else
+        if (!ContainsNaN(signal))
         {
             _last = signal[^1];
+            return default;
         }
 
-        _filter.Process(signal);
-
-        if (gap is not null)
+        if (_gaps.Length < signal.Length)
         {
-            for (var i = 0; i < signal.Length; i++)
+            _gaps = new bool[signal.Length];
+        }
+
+        var gaps = _gaps.AsSpan(0, signal.Length);
+        for (var i = 0; i < signal.Length; i++)
+        {
+            gaps[i] = float.IsNaN(signal[i]);
+            if (gaps[i])
             {
-                if (gap[i])
-                {
-                    signal[i] = float.NaN;
-                }
+                signal[i] = _last;
+            }
+            else
+            {
+                _last = signal[i];
+            }
+        }
+
+        return gaps;
+    }
+
+    /// <summary>After filtering: missing samples become NaN again.</summary>
+    internal static void RestoreGaps(Span<float> signal, ReadOnlySpan<bool> gaps)
+    {
+        for (var i = 0; i < gaps.Length; i++)
+        {
+            if (gaps[i])
+            {
+                signal[i] = float.NaN;
             }
         }
     }

@@ -169,6 +169,22 @@ internal sealed class LeadSignalBlocks
         _ring.AsSpan(0, count - first).CopyTo(destination[first..]);
     }
 
+    // The last samples startSample … _written − 1 read in place where the ring holds them in one piece, else copied
+    // into scratch (as CopyRange).
+    private ReadOnlySpan<float> Held(long startSample, long endSample, float[] scratch)
+    {
+        var at = _ringPos - (int)(_written - startSample);
+        var count = (int)(endSample - startSample);
+        if (startSample >= 0 && at >= 0 && endSample == _written)
+        {
+            return _ring.AsSpan(at, count);
+        }
+
+        var copy = scratch.AsSpan(0, count);
+        CopyRange(startSample, endSample, copy);
+        return copy;
+    }
+
     private void StoreInRing(ReadOnlySpan<float> cond)
     {
         var first = Math.Min(cond.Length, _ring.Length - _ringPos);
@@ -191,8 +207,7 @@ internal sealed class LeadSignalBlocks
     {
         var count = (int)(_written - _blockStart);
         var lag = _lag;
-        var span = _scratch.AsSpan(0, lag + count);
-        CopyRange(_blockStart - lag, _written, span);
+        var span = Held(_blockStart - lag, _written, _scratch);
         var block = span[lag..];
         var (nan, sum, min, max, peak, at) = SpanStatistics.Block(span, lag);
         if (!nan)

@@ -27,12 +27,14 @@ internal sealed class RunningMedian
         if (_count == _arrival.Length)
         {
             var old = _arrival[_next];
-            var at = Array.BinarySearch(_sorted, 0, _count, old);
+            // Span searches compare inline (Array.BinarySearch goes through a comparer object): the same positions
+            // among equal values do not matter, any of them gives the same sorted array.
+            var at = _sorted.AsSpan(0, _count).BinarySearch(old);
             Array.Copy(_sorted, at + 1, _sorted, at, _count - at - 1);
             _count--;
         }
 
-        var insert = Array.BinarySearch(_sorted, 0, _count, value);
+        var insert = _sorted.AsSpan(0, _count).BinarySearch(value);
         if (insert < 0)
         {
             insert = ~insert;

@@ -1,5 +1,6 @@
 using System.Numerics;
 using System.Runtime.InteropServices;
+using System.Runtime.Intrinsics;
 
 namespace LongRecord.Analysis.Quality;
 
@@ -34,6 +35,62 @@ internal static class SpanStatistics
         return false;
     }
 
+    // Across the lanes of one vector. Vector128.Min and .Max are IEEE minimum and maximum (NaN wins, −0 below +0),
+    // as Math.Min and Math.Max, so halving the vector gives what a loop over the lanes gives, in fewer steps.
+    private static float LaneMin(Vector<float> v)
+    {
+        if (Vector<float>.Count == 8)
+        {
+            var h = Vector128.Min(v.AsVector256().GetLower(), v.AsVector256().GetUpper());
+            h = Vector128.Min(h, Vector128.Shuffle(h, Vector128.Create(2, 3, 0, 1)));
+            return Vector128.Min(h, Vector128.Shuffle(h, Vector128.Create(1, 0, 3, 2))).ToScalar();
+        }
+
+        var min = float.PositiveInfinity;
+        for (var lane = 0; lane < Vector<float>.Count; lane++)
+        {
+            min = Math.Min(min, v[lane]);
+        }
+
+        return min;
+    }
+
+    private static float LaneMax(Vector<float> v)
+    {
+        if (Vector<float>.Count == 8)
+        {
+            var h = Vector128.Max(v.AsVector256().GetLower(), v.AsVector256().GetUpper());
+            h = Vector128.Max(h, Vector128.Shuffle(h, Vector128.Create(2, 3, 0, 1)));
+            return Vector128.Max(h, Vector128.Shuffle(h, Vector128.Create(1, 0, 3, 2))).ToScalar();
+        }
+
+        var max = float.NegativeInfinity;
+        for (var lane = 0; lane < Vector<float>.Count; lane++)
+        {
+            max = Math.Max(max, v[lane]);
+        }
+
+        return max;
+    }
+
+    private static int LaneMin(Vector<int> v)
+    {
+        if (Vector<int>.Count == 8)
+        {
+            var h = Vector128.Min(v.AsVector256().GetLower(), v.AsVector256().GetUpper());
+            h = Vector128.Min(h, Vector128.Shuffle(h, Vector128.Create(2, 3, 0, 1)));
+            return Vector128.Min(h, Vector128.Shuffle(h, Vector128.Create(1, 0, 3, 2))).ToScalar();
+        }
+
+        var min = int.MaxValue;
+        for (var lane = 0; lane < Vector<int>.Count; lane++)
+        {
+            min = Math.Min(min, v[lane]);
+        }
+
+        return min;
+    }
+
     public static (float Min, float Max) MinMax(ReadOnlySpan<float> x)
     {
         float min = float.PositiveInfinity, max = float.NegativeInfinity;
@@ -49,12 +106,8 @@ internal static class SpanStatistics
                 vmax = Vector.Max(vmax, v);
             }
 
-            for (var k = 0; k < Vector<float>.Count; k++)
-            {
-                min = Math.Min(min, vmin[k]);
-                max = Math.Max(max, vmax[k]);
-            }
-
+            min = LaneMin(vmin);
+            max = LaneMax(vmax);
             i = vectors.Length * Vector<float>.Count;
         }
 
@@ -113,17 +166,15 @@ internal static class SpanStatistics
 
             nan = !Vector.EqualsAll(ok, Vector<int>.AllBitsSet);
             sum = Vector.Sum(vs);
-            for (var lane = 0; lane < width; lane++)
+            min = LaneMin(vmin);
+            max = LaneMax(vmax);
+            // The largest slope, at the first index holding it (none above 0: peak 0 at 0).
+            var top = LaneMax(best);
+            if (top > 0)
             {
-                min = Math.Min(min, vmin[lane]);
-                max = Math.Max(max, vmax[lane]);
-                var value = best[lane];
-                var index = where[lane] * width + lane;
-                if (value > peak || (value == peak && value > 0 && index < at))
-                {
-                    peak = value;
-                    at = index;
-                }
+                var index = where * width + Vector<int>.Indices;
+                peak = top;
+                at = LaneMin(Vector.ConditionalSelect(Vector.Equals(best, new Vector<float>(top)), index, new Vector<int>(int.MaxValue)));
             }
 
             i = a.Length * width;

@@ -1,0 +1,129 @@
+using System.Runtime.Intrinsics;
+
+namespace LongRecord.Analysis.Conditioning;
+
+public sealed partial class BiquadCascade
+{
+    /// <summary>
+    /// Filters two signals at once: this cascade over <paramref name="first"/> and <paramref name="other"/> (with as
+    /// many sections) over <paramref name="second"/>, each in place. The same results, bit for bit, as
+    /// <c>Process(first)</c> and <c>other.Process(second)</c>.
+    /// </summary>
+    /// <remarks>
+    /// Each section's recursion is a chain of dependent multiply-adds that leaves the processor idle between its steps;
+    /// two signals in the two lanes of one vector share the chain's latency (about 2× faster for two leads). Each lane
+    /// does the scalar loop's operations in its order (no fused multiply-add), so the rounding is the same.
+    /// </remarks>
+    public void ProcessWith(BiquadCascade other, Span<float> first, Span<float> second)
+    {
+        if (other.Sections != Sections)
+        {
+            throw new ArgumentException($"the cascades differ in sections ({Sections} and {other.Sections})", nameof(other));
+        }
+
+        if (first.Length != second.Length)
+        {
+            throw new ArgumentException("the two signals differ in length", nameof(second));
+        }
+
+        if (Sections is not (2 or 3))
+        {
+            Process(first);
+            other.Process(second);
+            return;
+        }
+
+        Span<double> a = stackalloc double[WorkSamples];
+        Span<double> b = stackalloc double[WorkSamples];
+        for (var done = 0; done < first.Length; done += WorkSamples)
+        {
+            var n = Math.Min(WorkSamples, first.Length - done);
+            var x = a[..n];
+            var y = b[..n];
+            Widen(first.Slice(done, n), x);
+            Widen(second.Slice(done, n), y);
+            if (Sections == 2)
+            {
+                PairTwo(other, x, y);
+            }
+            else
+            {
+                PairThree(other, x, y);
+            }
+
+            Narrow(x, first.Slice(done, n));
+            Narrow(y, second.Slice(done, n));
+        }
+    }
+
+    private Section Lanes(BiquadCascade other, int s) => new(
+        Vector128.Create(_b0[s], other._b0[s]),
+        Vector128.Create(_b1[s], other._b1[s]),
+        Vector128.Create(_b2[s], other._b2[s]),
+        Vector128.Create(_a1[s], other._a1[s]),
+        Vector128.Create(_a2[s], other._a2[s]),
+        Vector128.Create(_z1[s], other._z1[s]),
+        Vector128.Create(_z2[s], other._z2[s]));
+
+    private void Store(BiquadCascade other, int s, Vector128<double> z1, Vector128<double> z2)
+    {
+        _z1[s] = z1.GetElement(0);
+        _z2[s] = z2.GetElement(0);
+        other._z1[s] = z1.GetElement(1);
+        other._z2[s] = z2.GetElement(1);
+    }
+
+    private void PairTwo(BiquadCascade other, Span<double> first, Span<double> second)
+    {
+        var p = Lanes(other, 0);
+        var q = Lanes(other, 1);
+        Vector128<double> u1 = p.Z1, u2 = p.Z2, v1 = q.Z1, v2 = q.Z2;
+        for (var i = 0; i < first.Length; i++)
+        {
+            var x = Vector128.Create(first[i], second[i]);
+            var y = p.B0 * x + u1;
+            u1 = p.B1 * x - p.A1 * y + u2;
+            u2 = p.B2 * x - p.A2 * y;
+            var z = q.B0 * y + v1;
+            v1 = q.B1 * y - q.A1 * z + v2;
+            v2 = q.B2 * y - q.A2 * z;
+            first[i] = z.GetElement(0);
+            second[i] = z.GetElement(1);
+        }
+
+        Store(other, 0, u1, u2);
+        Store(other, 1, v1, v2);
+    }
+
+    private void PairThree(BiquadCascade other, Span<double> first, Span<double> second)
+    {
+        var p = Lanes(other, 0);
+        var q = Lanes(other, 1);
+        var r = Lanes(other, 2);
+        Vector128<double> u1 = p.Z1, u2 = p.Z2, v1 = q.Z1, v2 = q.Z2, w1 = r.Z1, w2 = r.Z2;
+        for (var i = 0; i < first.Length; i++)
+        {
+            var x = Vector128.Create(first[i], second[i]);
+            var y = p.B0 * x + u1;
+            u1 = p.B1 * x - p.A1 * y + u2;
+            u2 = p.B2 * x - p.A2 * y;
+            var z = q.B0 * y + v1;
+            v1 = q.B1 * y - q.A1 * z + v2;
+            v2 = q.B2 * y - q.A2 * z;
+            var o = r.B0 * z + w1;
+            w1 = r.B1 * z - r.A1 * o + w2;
+            w2 = r.B2 * z - r.A2 * o;
+            first[i] = o.GetElement(0);
+            second[i] = o.GetElement(1);
+        }
+
+        Store(other, 0, u1, u2);
+        Store(other, 1, v1, v2);
+        Store(other, 2, w1, w2);
+    }
+
+    // One section's coefficients and state, lane 0 for this cascade and lane 1 for the other.
+    private readonly record struct Section(
+        Vector128<double> B0, Vector128<double> B1, Vector128<double> B2, Vector128<double> A1, Vector128<double> A2,
+        Vector128<double> Z1, Vector128<double> Z2);
+}
