@@ -30,6 +30,7 @@ public sealed partial class BeatDelineator
     private readonly LeadQrs[] _leadQrs;
     private readonly LeadP[] _leadP;
     private readonly PWaveSearch _pSearch;
+    private readonly PreviousBeatLocator _previousBeat = new();
     private readonly TWaveSamples _t;
     private int? _lastTEndAfterFiducial;
     private readonly int[] _tEnds;
@@ -148,15 +149,24 @@ public sealed partial class BeatDelineator
         Grow(length);
         var mask = context.UsableLeadMask == 0 ? ulong.MaxValue : context.UsableLeadMask;
 
+        // A previous beat before the window is not passed by the caller; it is found from the overlap of the windows.
+        var known = context;
+        if (known.PreviousFiducial is null && _previousBeat.Locate(window[..length]) is int located)
+        {
+            known = known with { PreviousFiducial = located };
+        }
+
+        _previousBeat.Remember(window[..length], fiducial);
+
         // Search limits: never past halfway to a neighbouring beat.
         var low = 1;
         var high = length - 2;
-        if (context.PreviousFiducial is int prev && prev < fiducial)
+        if (known.PreviousFiducial is int prev && prev < fiducial)
         {
             low = Math.Max(low, (prev + fiducial) / 2);
         }
 
-        if (context.NextFiducial is int next && next > fiducial)
+        if (known.NextFiducial is int next && next > fiducial)
         {
             high = Math.Min(high, (fiducial + next) / 2);
         }
@@ -221,6 +231,14 @@ public sealed partial class BeatDelineator
             }
         }
 
+        for (var k = 0; k < _leads; k++)
+        {
+            if (_leadQrs[k].Usable)
+            {
+                Differentiate(_waveSignal.AsSpan(k * length, length), _waveSlope.AsSpan(k * length, length));
+            }
+        }
+
         var centre = LocateQrs(length, fiducial, low, high);
         var from = Math.Max(low, centre - _maxHalf);
         var to = Math.Min(high, centre + _maxHalf);
@@ -239,7 +257,8 @@ public sealed partial class BeatDelineator
             var fine = _fineSignal.AsSpan(k * length, length);
             _fineLowPass.Apply(window.Slice(k * length + fineFrom, fineTo - fineFrom), fine[fineFrom..fineTo]);
             var d = _slope.AsSpan(k * length, length);
-            QrsBoundarySearch.Find(_qrsSignal.AsSpan(k * length, length), d, fine, centre, from, to, _qrs, NoiseSlope(d, centre, context), ref lead);
+            var (activity, noise) = NoiseSlope(d, _waveSlope.AsSpan(k * length, length), centre);
+            QrsBoundarySearch.Find(_qrsSignal.AsSpan(k * length, length), d, fine, centre, from, to, _qrs, activity, noise, ref lead);
         }
 
         var (onsetAt, offsetAt, confidence) = MultileadQrs.Combine(_leadQrs, (float)_settings.MinLeadSlopeFraction, (float)_settings.LeadSnrFloor, _outlier);
@@ -253,16 +272,8 @@ public sealed partial class BeatDelineator
             return new BeatDelineation(onset, offset, width, rPeak, -1, -1, -1, confidence);
         }
 
-        for (var k = 0; k < _leads; k++)
-        {
-            if (_leadQrs[k].Usable)
-            {
-                Differentiate(_waveSignal.AsSpan(k * length, length), _waveSlope.AsSpan(k * length, length));
-            }
-        }
-
-        var tEnd = TEnd(length, fiducial, onset, offset, context);
-        var (pWave, pPeak) = PWave(length, fiducial, onset, context);
+        var tEnd = TEnd(length, fiducial, onset, offset, known);
+        var (pWave, pPeak) = PWave(length, fiducial, onset, known);
         _lastTEndAfterFiducial = tEnd >= 0 ? tEnd - fiducial : null;
         return new BeatDelineation(onset, offset, width, rPeak, pWave, pPeak, tEnd, confidence);
     }
