@@ -2,9 +2,9 @@ namespace LongRecord.Analysis.Beats.Delineation;
 
 /// <summary>
 /// Settings of <see cref="BeatDelineator"/>, all in milliseconds, hertz or ratios so that one set serves every sampling
-/// rate. The defaults were fitted on the development records of the QT Database present here (53 of its 105 records;
-/// the others are kept back for independent evaluation), on the AF and sinus records of the MIT-BIH Arrhythmia
-/// Database and on the synthesiser's truth; where a value comes from elsewhere, its line says so.
+/// rate. The defaults were fitted with the QT Database records present here in view (53 of its 105; the others, not
+/// present, could confirm them), with the AF, sinus and bundle-branch-block records of the MIT-BIH Arrhythmia Database
+/// and with the synthesiser's truth; where a value comes from elsewhere, its line says so.
 /// </summary>
 public sealed record DelineationSettings
 {
