@@ -30,6 +30,7 @@ public sealed partial class BeatDelineator
     private readonly LeadQrs[] _leadQrs;
     private readonly LeadP[] _leadP;
     private readonly PWaveSearch _pSearch;
+    private readonly PreviousBeatLocator _previousBeat = new();
     private readonly TWaveSamples _t;
     private int? _lastTEndAfterFiducial;
     private readonly int[] _tEnds;
@@ -41,6 +42,7 @@ public sealed partial class BeatDelineator
     private float[] _waveSlope = [];
     private float[] _scratch = [];
     private float[] _energy = [];
+    private double[] _work = [];
 
     /// <summary>Creates a delineator for <paramref name="leads"/> leads sampled at <paramref name="samplingRateHz"/>.</summary>
     public BeatDelineator(double samplingRateHz, int leads, DelineationSettings? settings = null)
@@ -148,15 +150,24 @@ public sealed partial class BeatDelineator
         Grow(length);
         var mask = context.UsableLeadMask == 0 ? ulong.MaxValue : context.UsableLeadMask;
 
+        // A previous beat before the window is not passed by the caller; it is found from the overlap of the windows.
+        var known = context;
+        if (known.PreviousFiducial is null && _previousBeat.Locate(window[..length]) is int located)
+        {
+            known = known with { PreviousFiducial = located };
+        }
+
+        _previousBeat.Remember(window[..length], fiducial);
+
         // Search limits: never past halfway to a neighbouring beat.
         var low = 1;
         var high = length - 2;
-        if (context.PreviousFiducial is int prev && prev < fiducial)
+        if (known.PreviousFiducial is int prev && prev < fiducial)
         {
             low = Math.Max(low, (prev + fiducial) / 2);
         }
 
-        if (context.NextFiducial is int next && next > fiducial)
+        if (known.NextFiducial is int next && next > fiducial)
         {
             high = Math.Min(high, (fiducial + next) / 2);
         }
@@ -190,8 +201,8 @@ public sealed partial class BeatDelineator
             return BeatDelineation.None;
         }
 
-        // The QRS band and the slow-wave band of every lead; independent recursions run side by side so the
-        // processor overlaps them (two leads: four at once).
+        // The QRS band and the slow-wave band of every lead, two leads (four recursions) at a time.
+        var lanes = new FilterLanes();
         for (var k = 0; k < _leads; k++)
         {
             if (!_leadQrs[k].Usable)
@@ -199,25 +210,22 @@ public sealed partial class BeatDelineator
                 continue;
             }
 
-            var x = _qrsSignal.AsSpan(k * length, length);
-            var w = _waveSignal.AsSpan(k * length, length);
-            var m = k + 1;
-            while (m < _leads && !_leadQrs[m].Usable)
+            var raw = window.Slice(k * length, length);
+            lanes.Add(raw, _qrsLowPass, _qrsSignal.AsSpan(k * length, length));
+            lanes.Add(raw, _waveLowPass, _waveSignal.AsSpan(k * length, length));
+            if (lanes.Full)
             {
-                m++;
+                lanes.Flush(_work);
             }
+        }
 
-            if (m < _leads)
+        lanes.Flush(_work);
+        for (var k = 0; k < _leads; k++)
+        {
+            if (_leadQrs[k].Usable)
             {
-                _qrsLowPass.ApplyFour(x, _waveLowPass, w, _qrsSignal.AsSpan(m * length, length), _waveSignal.AsSpan(m * length, length));
-                Differentiate(x, _slope.AsSpan(k * length, length));
-                Differentiate(_qrsSignal.AsSpan(m * length, length), _slope.AsSpan(m * length, length));
-                k = m;
-            }
-            else
-            {
-                _qrsLowPass.ApplyPair(x, _waveLowPass, w);
-                Differentiate(x, _slope.AsSpan(k * length, length));
+                Differentiate(_qrsSignal.AsSpan(k * length, length), _slope.AsSpan(k * length, length));
+                Differentiate(_waveSignal.AsSpan(k * length, length), _waveSlope.AsSpan(k * length, length));
             }
         }
 
@@ -230,16 +238,28 @@ public sealed partial class BeatDelineator
         var fineTo = Math.Min(length, to + _fineMargin + 1);
         for (var k = 0; k < _leads; k++)
         {
+            if (_leadQrs[k].Usable)
+            {
+                lanes.Add(window.Slice(k * length + fineFrom, fineTo - fineFrom), _fineLowPass, _fineSignal.AsSpan(k * length + fineFrom, fineTo - fineFrom));
+                if (lanes.Full)
+                {
+                    lanes.Flush(_work);
+                }
+            }
+        }
+
+        lanes.Flush(_work);
+        for (var k = 0; k < _leads; k++)
+        {
             ref var lead = ref _leadQrs[k];
             if (!lead.Usable)
             {
                 continue;
             }
 
-            var fine = _fineSignal.AsSpan(k * length, length);
-            _fineLowPass.Apply(window.Slice(k * length + fineFrom, fineTo - fineFrom), fine[fineFrom..fineTo]);
             var d = _slope.AsSpan(k * length, length);
-            QrsBoundarySearch.Find(_qrsSignal.AsSpan(k * length, length), d, fine, centre, from, to, _qrs, NoiseSlope(d, centre, context), ref lead);
+            var (activity, noise) = NoiseSlope(d, _waveSlope.AsSpan(k * length, length), centre);
+            QrsBoundarySearch.Find(_qrsSignal.AsSpan(k * length, length), d, _fineSignal.AsSpan(k * length, length), centre, from, to, _qrs, activity, noise, ref lead);
         }
 
         var (onsetAt, offsetAt, confidence) = MultileadQrs.Combine(_leadQrs, (float)_settings.MinLeadSlopeFraction, (float)_settings.LeadSnrFloor, _outlier);
@@ -253,16 +273,8 @@ public sealed partial class BeatDelineator
             return new BeatDelineation(onset, offset, width, rPeak, -1, -1, -1, confidence);
         }
 
-        for (var k = 0; k < _leads; k++)
-        {
-            if (_leadQrs[k].Usable)
-            {
-                Differentiate(_waveSignal.AsSpan(k * length, length), _waveSlope.AsSpan(k * length, length));
-            }
-        }
-
-        var tEnd = TEnd(length, fiducial, onset, offset, context);
-        var (pWave, pPeak) = PWave(length, fiducial, onset, context);
+        var tEnd = TEnd(length, fiducial, onset, offset, known);
+        var (pWave, pPeak) = PWave(length, fiducial, onset, known);
         _lastTEndAfterFiducial = tEnd >= 0 ? tEnd - fiducial : null;
         return new BeatDelineation(onset, offset, width, rPeak, pWave, pPeak, tEnd, confidence);
     }

@@ -2,9 +2,9 @@ namespace LongRecord.Analysis.Beats.Delineation;
 
 /// <summary>
 /// Settings of <see cref="BeatDelineator"/>, all in milliseconds, hertz or ratios so that one set serves every sampling
-/// rate. The defaults were fitted on the development records of the QT Database present here (53 of its 105 records;
-/// the others are kept back for independent evaluation), on the AF and sinus records of the MIT-BIH Arrhythmia
-/// Database and on the synthesiser's truth; where a value comes from elsewhere, its line says so.
+/// rate. The defaults were fitted with the QT Database records present here in view (53 of its 105; the others, not
+/// present, could confirm them), with the AF, sinus and bundle-branch-block records of the MIT-BIH Arrhythmia Database
+/// and with the synthesiser's truth; where a value comes from elsewhere, its line says so.
 /// </summary>
 public sealed record DelineationSettings
 {
@@ -66,16 +66,34 @@ public sealed record DelineationSettings
     /// <summary>The slope must stay under the threshold this long for a boundary (a brief dip inside the QRS is not one), ms.</summary>
     public double SustainMs { get; init; } = 18;
 
-    /// <summary>Boundary thresholds never go below this multiple of the lead's noise slope.</summary>
+    /// <summary>Boundary thresholds never go below this multiple of the lead's activity slope (what it shows outside the QRS).</summary>
     public double NoiseSlopeMultiple { get; init; } = 1;
 
-    /// <summary>
-    /// The noise slope is this multiple of the mean absolute slope away from the QRS complexes (1.6 × the mean absolute
-    /// value is the 80th percentile of a Gaussian's absolute value).
-    /// </summary>
-    public double NoiseMeanScale { get; init; } = 1.6;
+    /// <summary>Length of the segments whose mean absolute slopes the activity and the noise of a lead are taken from, ms.</summary>
+    public double NoiseSegmentMs { get; init; } = 40;
 
-    /// <summary>Half-width of the stretch around this and the neighbouring beats' fiducials left out of the noise slope, ms.</summary>
+    /// <summary>
+    /// The activity slope (the floor of the boundary thresholds) rests on this quantile of the segments' mean absolute
+    /// slopes: the median segment, so P, T and fibrillatory waves count and the neighbouring complexes do not.
+    /// </summary>
+    public double ActivityQuantile { get; init; } = 0.5;
+
+    /// <summary>
+    /// The activity slope is this multiple of that quantile: 1.7 makes it the 80th percentile of |slope| under
+    /// stationary Gaussian noise (measured on white noise through the 25 Hz low-pass, 1.70 at 250 Hz).
+    /// </summary>
+    public double ActivityScale { get; init; } = 1.7;
+
+    /// <summary>
+    /// The noise slope (for a lead's SNR) rests on this quantile of the segments' mean high-frequency slope (the 25 Hz
+    /// band less the 15 Hz band, which P and T waves do not reach): the quiet segments, away from other QRS complexes.
+    /// </summary>
+    public double NoiseQuantile { get; init; } = 0.2;
+
+    /// <summary>The noise slope is this multiple of that quantile (4.1: the 80th percentile of |slope| under Gaussian noise, 250 Hz).</summary>
+    public double NoiseScale { get; init; } = 4.1;
+
+    /// <summary>Half-width of the stretch around this beat's QRS centre left out of the activity and noise slopes, ms.</summary>
     public double NoiseExclusionMs { get; init; } = 120;
 
     /// <summary>

@@ -13,15 +13,18 @@ internal static class QrsBoundarySearch
     /// <summary>
     /// Searches for the QRS around <paramref name="centre"/> in <paramref name="x"/> (low-passed lead, mV) and
     /// <paramref name="slope"/> (its derivative, mV/s); boundaries stay within [<paramref name="low"/>, <paramref name="high"/>].
-    /// A boundary that runs into a limit is reported as not found.
+    /// <paramref name="activitySlope"/> is the slope level of what the lead shows outside the QRS (the floor of the
+    /// thresholds), <paramref name="noiseSlope"/> its high-frequency noise (for the lead's SNR). A boundary that runs
+    /// into a limit is reported as not found.
     /// </summary>
     public static void Find(
         ReadOnlySpan<float> x, ReadOnlySpan<float> slope, ReadOnlySpan<float> fineX,
-        int centre, int low, int high, in QrsSearchSamples p, float noiseSlope, ref LeadQrs lead)
+        int centre, int low, int high, in QrsSearchSamples p, float activitySlope, float noiseSlope, ref LeadQrs lead)
     {
         lead.Onset = -1;
         lead.Offset = -1;
         lead.NoiseSlope = noiseSlope;
+        lead.ActivitySlope = activitySlope;
         var from = Math.Max(low + 1, centre - p.PeakSearch);
         var to = Math.Min(high - 1, centre + p.PeakSearch);
         var peakAt = -1;
@@ -49,12 +52,14 @@ internal static class QrsBoundarySearch
         }
 
         var sig = new Significance(
-            p.SignificantFraction * peak, p.WeakFraction * peak, p.SignificantAmplitude * (max - min), p.WaveLimb, Math.Max(p.QuietFraction * peak, noiseSlope), p.QuietGap, p.Notch);
+            p.SignificantFraction * peak, p.WeakFraction * peak, p.SignificantAmplitude * (max - min), p.WaveLimb, Math.Max(p.QuietFraction * peak, activitySlope), p.QuietGap, p.Notch);
         var first = Extend(x, slope, peakAt, low, -1, sig);
         var last = Extend(x, slope, peakAt, high, +1, sig);
+        lead.FirstSlope = Math.Abs(slope[first]);
+        lead.LastSlope = Math.Abs(slope[last]);
 
-        var onThreshold = Math.Max(Math.Max(Math.Abs(slope[first]) / p.OnsetDivisor, p.GlobalOn * peak), p.NoiseMultiple * noiseSlope);
-        var offThreshold = Math.Max(Math.Max(Math.Abs(slope[last]) / p.OffsetDivisor, p.GlobalOff * peak), p.NoiseMultiple * noiseSlope);
+        var onThreshold = Math.Max(Math.Max(lead.FirstSlope / p.OnsetDivisor, p.GlobalOn * peak), p.NoiseMultiple * activitySlope);
+        var offThreshold = Math.Max(Math.Max(lead.LastSlope / p.OffsetDivisor, p.GlobalOff * peak), p.NoiseMultiple * activitySlope);
         lead.Onset = Boundary(slope, first, low, -1, onThreshold, p.Sustain);
         lead.Offset = Boundary(slope, last, high, +1, offThreshold, p.Sustain);
         lead.OnsetAt = lead.Onset >= 0 ? Crossing(slope, lead.Onset, first, -1, onThreshold) : -1;

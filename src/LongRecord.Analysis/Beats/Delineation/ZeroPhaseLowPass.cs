@@ -1,193 +1,180 @@
+using System.Runtime.CompilerServices;
+using System.Runtime.InteropServices;
+using System.Runtime.Intrinsics;
 using NWaves.Filters.Fda;
 
 namespace LongRecord.Analysis.Beats.Delineation;
 
 /// <summary>
-/// A Butterworth low-pass (designed by NWaves, run as second-order sections by our own loop) applied forward and then
-/// backward over a short stretch: zero phase, so wave boundaries do not move; the magnitude response is squared
-/// (−6 dB at the corner). Each call starts from the stretch's own edge values (steady state), so nothing passes
-/// between windows.
+/// A second-order Butterworth low-pass (designed by NWaves, run by our own loop) applied forward and then backward over
+/// a short stretch: zero phase, so wave boundaries do not move; the magnitude response is squared (−6 dB at the
+/// corner). Each pass starts in the steady state of its first input value, so nothing passes between windows.
 /// </summary>
 internal sealed class ZeroPhaseLowPass
 {
-    private readonly double[] _b0;
-    private readonly double[] _b1;
-    private readonly double[] _b2;
-    private readonly double[] _a1;
-    private readonly double[] _a2;
-    private readonly double[] _gain;
+    private readonly double _b0;
+    private readonly double _b1;
+    private readonly double _b2;
+    private readonly double _a1;
+    private readonly double _a2;
+    private readonly double _gain;
 
-    public ZeroPhaseLowPass(double cornerHz, double samplingRateHz, int order = 2)
+    public ZeroPhaseLowPass(double cornerHz, double samplingRateHz)
     {
         // NWaves takes the corner divided by the sampling rate; keep it below Nyquist for slow recordings.
         var normalised = Math.Min(cornerHz, 0.45 * samplingRateHz) / samplingRateHz;
-        var sections = DesignFilter.TfToSos(new NWaves.Filters.Butterworth.LowPassFilter(normalised, order).Tf);
-        var n = sections.Length;
-        _b0 = new double[n];
-        _b1 = new double[n];
-        _b2 = new double[n];
-        _a1 = new double[n];
-        _a2 = new double[n];
-        _gain = new double[n];
+        var sections = DesignFilter.TfToSos(new NWaves.Filters.Butterworth.LowPassFilter(normalised, 2).Tf);
+        var b = sections[0].Numerator;
+        var a = sections[0].Denominator;
+        _b0 = b[0] / a[0];
+        _b1 = (b.Length > 1 ? b[1] : 0) / a[0];
+        _b2 = (b.Length > 2 ? b[2] : 0) / a[0];
+        _a1 = (a.Length > 1 ? a[1] : 0) / a[0];
+        _a2 = (a.Length > 2 ? a[2] : 0) / a[0];
+        _gain = (_b0 + _b1 + _b2) / (1 + _a1 + _a2);
+    }
+
+    /// <summary>
+    /// Filters the lanes (up to four stretches of one length, each with its own filter) forward and backward.
+    /// <paramref name="work"/> holds at least 4 × the length. With 256-bit vectors the four recursions run in the lanes
+    /// of one vector, else one after another; each lane sees the same operations in the same order either way, so the
+    /// result does not depend on the processor.
+    /// </summary>
+    public static void Run(ref FilterLanes lanes, Span<double> work)
+    {
+        var n = lanes.Length;
+        if (n == 0 || lanes.Count == 0)
+        {
+            return;
+        }
+
+        if (work.Length < 4 * n)
+        {
+            throw new ArgumentException("the work buffer holds fewer than 4 × length values", nameof(work));
+        }
+
+        if (Vector256.IsHardwareAccelerated)
+        {
+            RunVector(ref lanes, work, n);
+        }
+        else
+        {
+            RunLaneByLane(ref lanes, work);
+        }
+    }
+
+    /// <summary>The lanes one after another, without vectors (what <see cref="Run"/> does on a processor without them).</summary>
+    internal static void RunLaneByLane(ref FilterLanes lanes, Span<double> work)
+    {
+        for (var k = 0; k < lanes.Count; k++)
+        {
+            lanes.Filter(k).RunScalar(lanes.Source(k), lanes.Destination(k), work);
+        }
+    }
+
+    // Direct form I: the feedback of the last output is added last, so one multiply-add lies on the recursion's
+    // critical path (the transposed form has two). The forward pass reads the four sources side by side and keeps its
+    // output in the work buffer (one vector per sample); the backward pass writes the four destinations.
+    private static void RunVector(ref FilterLanes lanes, Span<double> work, int n)
+    {
+        var count = lanes.Count;
+        var f0 = lanes.Filter(0);
+        var f1 = count > 1 ? lanes.Filter(1) : f0;
+        var f2 = count > 2 ? lanes.Filter(2) : f0;
+        var f3 = count > 3 ? lanes.Filter(3) : f0;
+        var b0 = Vector256.Create(f0._b0, f1._b0, f2._b0, f3._b0);
+        var b1 = Vector256.Create(f0._b1, f1._b1, f2._b1, f3._b1);
+        var b2 = Vector256.Create(f0._b2, f1._b2, f2._b2, f3._b2);
+        var minusA1 = Vector256.Create(-f0._a1, -f1._a1, -f2._a1, -f3._a1);
+        var a2 = Vector256.Create(f0._a2, f1._a2, f2._a2, f3._a2);
+        var gain = Vector256.Create(f0._gain, f1._gain, f2._gain, f3._gain);
+
+        // A missing lane repeats lane 0; its output is never written.
+        ref var s0 = ref MemoryMarshal.GetReference(lanes.Source(0));
+        ref var s1 = ref MemoryMarshal.GetReference(count > 1 ? lanes.Source(1) : lanes.Source(0));
+        ref var s2 = ref MemoryMarshal.GetReference(count > 2 ? lanes.Source(2) : lanes.Source(0));
+        ref var s3 = ref MemoryMarshal.GetReference(count > 3 ? lanes.Source(3) : lanes.Source(0));
+        ref var w = ref MemoryMarshal.GetReference(work);
+
+        var u = Vector256.Create((double)s0, s1, s2, s3);
+        Vector256<double> u1 = u, u2 = u, y1 = gain * u, y2 = y1;
+        for (nuint i = 0; i < (nuint)n; i++)
+        {
+            u = Vector256.Create((double)Unsafe.Add(ref s0, i), Unsafe.Add(ref s1, i), Unsafe.Add(ref s2, i), Unsafe.Add(ref s3, i));
+            var y = Vector256.FusedMultiplyAdd(minusA1, y1, b0 * u + b1 * u1 + b2 * u2 - a2 * y2);
+            u2 = u1;
+            u1 = u;
+            y2 = y1;
+            y1 = y;
+            y.StoreUnsafe(ref w, 4 * i);
+        }
+
+        Span<float> none = stackalloc float[1];
+        ref var d0 = ref MemoryMarshal.GetReference(lanes.Destination(0));
+        ref var d1 = ref MemoryMarshal.GetReference(count > 1 ? lanes.Destination(1) : none);
+        ref var d2 = ref MemoryMarshal.GetReference(count > 2 ? lanes.Destination(2) : none);
+        ref var d3 = ref MemoryMarshal.GetReference(count > 3 ? lanes.Destination(3) : none);
+        u = Vector256.LoadUnsafe(ref w, 4 * (nuint)(n - 1));
+        u1 = u;
+        u2 = u;
+        y1 = gain * u;
+        y2 = y1;
+        for (var i = n - 1; i >= 0; i--)
+        {
+            u = Vector256.LoadUnsafe(ref w, 4 * (nuint)i);
+            var y = Vector256.FusedMultiplyAdd(minusA1, y1, b0 * u + b1 * u1 + b2 * u2 - a2 * y2);
+            u2 = u1;
+            u1 = u;
+            y2 = y1;
+            y1 = y;
+            Unsafe.Add(ref d0, i) = (float)y.GetElement(0);
+            if (count > 1)
+            {
+                Unsafe.Add(ref d1, i) = (float)y.GetElement(1);
+                if (count > 2)
+                {
+                    Unsafe.Add(ref d2, i) = (float)y.GetElement(2);
+                    if (count > 3)
+                    {
+                        Unsafe.Add(ref d3, i) = (float)y.GetElement(3);
+                    }
+                }
+            }
+        }
+    }
+
+    // One lane, forward then backward, with the vector loop's arithmetic.
+    private void RunScalar(ReadOnlySpan<float> source, Span<float> destination, Span<double> work)
+    {
+        double b0 = _b0, b1 = _b1, b2 = _b2, minusA1 = -_a1, a2 = _a2;
+        var n = source.Length;
+        double u = source[0];
+        double u1 = u, u2 = u, y1 = _gain * u, y2 = y1;
         for (var i = 0; i < n; i++)
         {
-            var b = sections[i].Numerator;
-            var a = sections[i].Denominator;
-            _b0[i] = b[0] / a[0];
-            _b1[i] = (b.Length > 1 ? b[1] : 0) / a[0];
-            _b2[i] = (b.Length > 2 ? b[2] : 0) / a[0];
-            _a1[i] = (a.Length > 1 ? a[1] : 0) / a[0];
-            _a2[i] = (a.Length > 2 ? a[2] : 0) / a[0];
-            _gain[i] = (_b0[i] + _b1[i] + _b2[i]) / (1 + _a1[i] + _a2[i]);
-        }
-    }
-
-    /// <summary>Writes the filtered <paramref name="source"/> into <paramref name="destination"/> (same length).</summary>
-    public void Apply(ReadOnlySpan<float> source, Span<float> destination)
-    {
-        source.CopyTo(destination);
-        if (destination.IsEmpty)
-        {
-            return;
+            u = source[i];
+            var y = Math.FusedMultiplyAdd(minusA1, y1, b0 * u + b1 * u1 + b2 * u2 - a2 * y2);
+            u2 = u1;
+            u1 = u;
+            y2 = y1;
+            y1 = y;
+            work[i] = y;
         }
 
-        for (var s = 0; s < _b0.Length; s++)
+        u = work[n - 1];
+        u1 = u;
+        u2 = u;
+        y1 = _gain * u;
+        y2 = y1;
+        for (var i = n - 1; i >= 0; i--)
         {
-            Forward(destination, s);
-            Backward(destination, s);
-        }
-    }
-
-    /// <summary>
-    /// Filters two stretches of equal length at once, <paramref name="a"/> with this filter and <paramref name="b"/> with
-    /// <paramref name="other"/> (each in place). The two recursions are independent, so running them in one loop lets
-    /// the processor overlap them; the result equals two <see cref="Apply"/> calls.
-    /// </summary>
-    public void ApplyPair(Span<float> a, ZeroPhaseLowPass other, Span<float> b)
-    {
-        if (a.Length != b.Length || _b0.Length != 1 || other._b0.Length != 1 || a.IsEmpty)
-        {
-            Apply(a, a);
-            other.Apply(b, b);
-            return;
-        }
-
-        var fa = new Section(this);
-        var fb = new Section(other);
-        fa.Start(a[0]);
-        fb.Start(b[0]);
-        for (var i = 0; i < a.Length; i++)
-        {
-            a[i] = fa.Step(a[i]);
-            b[i] = fb.Step(b[i]);
-        }
-
-        fa.Start(a[^1]);
-        fb.Start(b[^1]);
-        for (var i = a.Length - 1; i >= 0; i--)
-        {
-            a[i] = fa.Step(a[i]);
-            b[i] = fb.Step(b[i]);
-        }
-    }
-
-    /// <summary>
-    /// Four stretches of equal length at once: <paramref name="a"/> and <paramref name="c"/> with this filter,
-    /// <paramref name="b"/> and <paramref name="d"/> with <paramref name="other"/> (each in place).
-    /// </summary>
-    public void ApplyFour(Span<float> a, ZeroPhaseLowPass other, Span<float> b, Span<float> c, Span<float> d)
-    {
-        if (a.Length != b.Length || a.Length != c.Length || a.Length != d.Length || _b0.Length != 1 || other._b0.Length != 1 || a.IsEmpty)
-        {
-            ApplyPair(a, other, b);
-            ApplyPair(c, other, d);
-            return;
-        }
-
-        var fa = new Section(this);
-        var fb = new Section(other);
-        var fc = new Section(this);
-        var fd = new Section(other);
-        fa.Start(a[0]);
-        fb.Start(b[0]);
-        fc.Start(c[0]);
-        fd.Start(d[0]);
-        for (var i = 0; i < a.Length; i++)
-        {
-            a[i] = fa.Step(a[i]);
-            b[i] = fb.Step(b[i]);
-            c[i] = fc.Step(c[i]);
-            d[i] = fd.Step(d[i]);
-        }
-
-        fa.Start(a[^1]);
-        fb.Start(b[^1]);
-        fc.Start(c[^1]);
-        fd.Start(d[^1]);
-        for (var i = a.Length - 1; i >= 0; i--)
-        {
-            a[i] = fa.Step(a[i]);
-            b[i] = fb.Step(b[i]);
-            c[i] = fc.Step(c[i]);
-            d[i] = fd.Step(d[i]);
-        }
-    }
-
-    // One second-order section's coefficients and state, kept in locals by the JIT.
-    private struct Section(ZeroPhaseLowPass f)
-    {
-        private readonly double _b0 = f._b0[0], _b1 = f._b1[0], _b2 = f._b2[0], _a1 = f._a1[0], _a2 = f._a2[0], _gain = f._gain[0];
-        private double _z1;
-        private double _z2;
-
-        public void Start(double v)
-        {
-            var y0 = _gain * v;
-            _z2 = _b2 * v - _a2 * y0;
-            _z1 = y0 - _b0 * v;
-        }
-
-        public float Step(double u)
-        {
-            var y = _b0 * u + _z1;
-            _z1 = _b1 * u - _a1 * y + _z2;
-            _z2 = _b2 * u - _a2 * y;
-            return (float)y;
-        }
-    }
-
-    // Transposed direct form II, started in the steady state of the first input value.
-    private void Forward(Span<float> x, int s)
-    {
-        double b0 = _b0[s], b1 = _b1[s], b2 = _b2[s], a1 = _a1[s], a2 = _a2[s];
-        double v = x[0];
-        var y0 = _gain[s] * v;
-        var z2 = b2 * v - a2 * y0;
-        var z1 = y0 - b0 * v;
-        for (var i = 0; i < x.Length; i++)
-        {
-            double u = x[i];
-            var y = b0 * u + z1;
-            z1 = b1 * u - a1 * y + z2;
-            z2 = b2 * u - a2 * y;
-            x[i] = (float)y;
-        }
-    }
-
-    private void Backward(Span<float> x, int s)
-    {
-        double b0 = _b0[s], b1 = _b1[s], b2 = _b2[s], a1 = _a1[s], a2 = _a2[s];
-        double v = x[^1];
-        var y0 = _gain[s] * v;
-        var z2 = b2 * v - a2 * y0;
-        var z1 = y0 - b0 * v;
-        for (var i = x.Length - 1; i >= 0; i--)
-        {
-            double u = x[i];
-            var y = b0 * u + z1;
-            z1 = b1 * u - a1 * y + z2;
-            z2 = b2 * u - a2 * y;
-            x[i] = (float)y;
+            u = work[i];
+            var y = Math.FusedMultiplyAdd(minusA1, y1, b0 * u + b1 * u1 + b2 * u2 - a2 * y2);
+            u2 = u1;
+            u1 = u;
+            y2 = y1;
+            y1 = y;
+            destination[i] = (float)y;
         }
     }
 }
