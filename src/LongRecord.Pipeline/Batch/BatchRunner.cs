@@ -23,6 +23,8 @@ public static class BatchRunner
         var mine = options.Shard.Select(candidates);
         progress?.Planned(candidates.Length, mine.Count, options.Shard);
 
+        var listings = new ConcurrentDictionary<string, string[]>(StringComparer.Ordinal);
+        var runOptions = new RunOptions(options, folder => listings.GetOrAdd(folder, Directory.GetFiles));
         var entries = new BatchEntry[mine.Count];
         try
         {
@@ -31,7 +33,7 @@ public static class BatchRunner
                 new ParallelOptions { MaxDegreeOfParallelism = options.Jobs, CancellationToken = cancellation },
                 i =>
                 {
-                    entries[i] = RunOne(mine[i], outputRoot, options, progress, cancellation);
+                    entries[i] = RunOne(mine[i], outputRoot, runOptions, progress, cancellation);
                     progress?.Finished(entries[i]);
                 });
         }
@@ -45,8 +47,12 @@ public static class BatchRunner
     }
 
     /// <summary>One recording: leftovers removed, fingerprint compared, analysed when it differs.</summary>
-    public static BatchEntry RunOne(RecordingInput input, string outputRoot, BatchOptions options, IBatchProgress? progress = null, CancellationToken cancellation = default)
+    public static BatchEntry RunOne(RecordingInput input, string outputRoot, BatchOptions options, IBatchProgress? progress = null, CancellationToken cancellation = default) =>
+        RunOne(input, outputRoot, new RunOptions(options, null), progress, cancellation);
+
+    private static BatchEntry RunOne(RecordingInput input, string outputRoot, RunOptions run, IBatchProgress? progress, CancellationToken cancellation)
     {
+        var options = run.Batch;
         var clock = Stopwatch.StartNew();
         try
         {
@@ -59,7 +65,7 @@ public static class BatchRunner
                 opened = reader.Info.FilePath;
             }
 
-            var fingerprint = RecordingFingerprint.Compute(input with { Path = opened }, options.Summary);
+            var fingerprint = RecordingFingerprint.Compute(input with { Path = opened }, options.Summary, listFolder: run.ListFolder);
             var final = Path.Combine(outputRoot, input.OutputName);
             var why = fingerprint.DifferenceFrom(Directory.Exists(final) ? RecordingFingerprint.Read(final) : null);
             if (why is null && !options.Force)
@@ -95,6 +101,9 @@ public static class BatchRunner
 
     private static BatchEntry Failed(RecordingInput input, string reason, Stopwatch clock, bool fault) =>
         new(input, BatchStatus.Failed, reason) { ElapsedS = clock.Elapsed.TotalSeconds, InternalFault = fault };
+
+    // The batch's options and what its workers share: one listing per folder for the side files.
+    private sealed record RunOptions(BatchOptions Batch, Func<string, IReadOnlyList<string>>? ListFolder);
 
     private static bool IsUnder(string path, string folder) => path.StartsWith(folder + Path.DirectorySeparatorChar, StringComparison.Ordinal);
 }

@@ -44,12 +44,13 @@ public sealed class RecordingFingerprint
     public string Digest { get; }
 
     /// <summary>Hashes the recording and its side files and combines them with the options and settings.</summary>
-    public static RecordingFingerprint Compute(RecordingInput input, SummaryOptions options, string? toolVersion = null)
+    /// <param name="listFolder">See <see cref="RecordingSideFiles.For"/>.</param>
+    public static RecordingFingerprint Compute(RecordingInput input, SummaryOptions options, string? toolVersion = null, Func<string, IReadOnlyList<string>>? listFolder = null)
     {
         var optionsJson = OptionsJson(options);
         var folder = Path.GetDirectoryName(Path.GetFullPath(input.Path))!;
         var files = new JsonArray();
-        foreach (var file in RecordingSideFiles.For(input, optionsJson, options.Beats))
+        foreach (var file in RecordingSideFiles.For(input, optionsJson, options.Beats, listFolder))
         {
             var (sha, bytes) = ContentHash.Of(file.Path);
             var under = file.Path.StartsWith(folder + Path.DirectorySeparatorChar, StringComparison.Ordinal);

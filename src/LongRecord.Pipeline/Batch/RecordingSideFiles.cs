@@ -19,7 +19,9 @@ public sealed record SideFile(string Role, string Path);
 /// </summary>
 public static class RecordingSideFiles
 {
-    public static IReadOnlyList<SideFile> For(RecordingInput input, JsonObject optionsJson, string? beatsSpec)
+    /// <param name="listFolder">Lists a folder's files; a batch passes one that lists each folder once, so a folder of
+    /// thousands of recordings is not listed once per recording. Null lists it now.</param>
+    public static IReadOnlyList<SideFile> For(RecordingInput input, JsonObject optionsJson, string? beatsSpec, Func<string, IReadOnlyList<string>>? listFolder = null)
     {
         var files = new List<SideFile> { new("recording", System.IO.Path.GetFullPath(input.Path)) };
         var folder = System.IO.Path.GetDirectoryName(System.IO.Path.GetFullPath(input.Path))!;
@@ -32,7 +34,8 @@ public static class RecordingSideFiles
         }
 
         var stem = System.IO.Path.GetFileNameWithoutExtension(input.Path);
-        foreach (var beside in Directory.EnumerateFiles(folder, stem + ".*").Order(StringComparer.Ordinal))
+        var prefix = System.IO.Path.Combine(folder, stem + ".");
+        foreach (var beside in (listFolder ?? Directory.GetFiles)(folder).Where(f => f.StartsWith(prefix, StringComparison.Ordinal)).Order(StringComparer.Ordinal))
         {
             files.Add(new SideFile("beside", beside));
         }
