@@ -31,7 +31,7 @@ public sealed class BatchFaultIsolationTests
         input.Write("bad/corrupt-header.edf", corrupt);
         input.Write("bad/empty.edf", []);
 
-        var (code, stdout, stderr) = BatchCli.Run("summarise", input.FullPath, "--out", output.FullPath, "--jobs", "2");
+        var (code, stdout, stderr) = BatchCli.Run("summarise", input.FullPath, "--out", output.FullPath, "--jobs", "2", "--timings");
 
         Assert.Equal(3, code);
         var folders = Directory.GetDirectories(output.FullPath).Select(Path.GetFileName).Order(StringComparer.Ordinal).ToArray();
@@ -89,5 +89,12 @@ public sealed class BatchFaultIsolationTests
         Assert.Contains("href=\"af/\"", html);
         Assert.Equal(3, html.Split("<tr class=\"failed\">").Length - 1);
         Assert.Contains("[7/7]", stdout);
+        // --timings: every stage of each analysed recording, and the batch's sums.
+        foreach (var stage in new[] { "read", "conditioning", "quality", "detection", "delineation", "classification", "rhythm", "outputs" })
+        {
+            Assert.Contains($" {stage} ", stdout.Split('\n').Single(l => l.Contains("af.edf: timings ", StringComparison.Ordinal)));
+        }
+
+        Assert.Contains("timings over 4 analysed recording(s): read ", stdout);
     }
 }
