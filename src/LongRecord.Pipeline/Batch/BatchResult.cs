@@ -1,5 +1,3 @@
-using LongRecord.Pipeline.Inputs;
-
 namespace LongRecord.Pipeline.Batch;
 
 /// <summary>The outcome of one batch run (or shard): an entry per recording it took, in input order, and its index files.</summary>
@@ -27,7 +25,4 @@ public sealed record BatchResult(int Found, ShardSpec Shard, IReadOnlyList<Batch
 
         return total;
     }
-
-    /// <summary>The recordings this run took.</summary>
-    public IEnumerable<RecordingInput> Inputs => Entries.Select(e => e.Input);
 }

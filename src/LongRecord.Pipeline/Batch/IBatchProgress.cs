@@ -1,3 +1,5 @@
+using LongRecord.Pipeline.Inputs;
+
 namespace LongRecord.Pipeline.Batch;
 
 /// <summary>
@@ -10,7 +12,7 @@ public interface IBatchProgress
     void Planned(int found, int inThisRun, ShardSpec shard);
 
     /// <summary>A recording's analysis begins (its fingerprint did not match), with the reason it runs.</summary>
-    void Started(LongRecord.Pipeline.Inputs.RecordingInput input, string reason);
+    void Started(RecordingInput input, string reason);
 
     /// <summary>A recording is done, unchanged or failed.</summary>
     void Finished(BatchEntry entry);
