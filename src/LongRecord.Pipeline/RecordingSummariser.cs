@@ -16,10 +16,10 @@ namespace LongRecord.Pipeline;
 /// </summary>
 public static class RecordingSummariser
 {
-    public static RecordingSummary Summarise(RecordingInput input, string outputRoot, SummaryOptions? options = null, CancellationToken cancellation = default)
+    public static RecordingSummary Summarise(RecordingInput input, string outputRoot, SummaryOptions? options = null, CancellationToken cancellation = default, Batch.SummaryObserver? observer = null)
     {
         options ??= new SummaryOptions();
-        var a = Analyse(input.Path, options, cancellation);
+        var a = Analyse(input.Path, options, cancellation, observer);
 
         using var folder = new OutputFolder(Path.Combine(outputRoot, input.OutputName));
         BeatsCsv.Write(folder.File("beats.csv"), a.Beats, a.ReferenceRateHz);
@@ -30,7 +30,9 @@ public static class RecordingSummariser
         var description = new RecordingDescription(input.Name, a.Info.FormatDetail, a.Info.StartDateTime, a.DurationS, a.ReferenceRateHz,
             a.LeadLabels, a.BeatSource, a.Info.HasSignal);
         SummaryJson.Write(folder.File("summary.json"), description, a.Rhythm, a.Settings);
+        observer?.Committing(folder.WorkPath);
         folder.Commit();
+        observer?.Mark("outputs");
         return new RecordingSummary(input.Name, folder.FinalPath, a.DurationS, a.ReferenceRateHz, a.LeadLabels.Count, a.Beats.Count, a.BeatSource, a.Info.HasSignal)
         {
             Rhythm = a.Rhythm,
@@ -38,14 +40,16 @@ public static class RecordingSummariser
     }
 
     /// <summary>Reads and analyses one recording (beats, quality, rhythm) without writing anything.</summary>
-    public static RecordingAnalysis Analyse(string path, SummaryOptions? options = null, CancellationToken cancellation = default)
+    public static RecordingAnalysis Analyse(string path, SummaryOptions? options = null, CancellationToken cancellation = default, Batch.SummaryObserver? observer = null)
     {
         options ??= new SummaryOptions();
         using var reader = RecordingOpener.Open(path);
         var info = reader.Info;
         var beats = info.HasSignal ? FromSignal(reader, options, cancellation) : FromAnnotationsOnly(reader, options);
+        observer?.MarkBeats(beats.Timings);
         var settings = options.Settings ?? AnalysisSettings.Default;
         var rhythm = RhythmAnalyser.Analyse(RhythmInputOf(beats, info), settings);
+        observer?.Mark("rhythm");
         return new RecordingAnalysis(info, beats.Beats, beats.Quality, rhythm, settings, beats.ReferenceRateHz, beats.DurationS, beats.LeadLabels, beats.BeatSource);
     }
 
@@ -65,7 +69,7 @@ public static class RecordingSummariser
         var given = options.Beats is string spec ? ExternalBeats.Load(spec, reader.Info.FilePath, channels.ReferenceRateHz) : null;
         var analyser = DetectBeats(reader, channels, options.BlockSamples, cancellation, given);
         var labels = channels.Indices.Select(i => reader.Info.Channels[i].Label).ToArray();
-        return new BeatsResult(analyser.Beats, analyser.Quality, channels.ReferenceRateHz, reader.Info.DurationS, labels, given?.Source ?? "detected");
+        return new BeatsResult(analyser.Beats, analyser.Quality, channels.ReferenceRateHz, reader.Info.DurationS, labels, given?.Source ?? "detected") { Timings = analyser.Timings };
     }
 
     // No signal (a header whose signal file is absent, or one that declares no signals): beats from annotations only.
@@ -105,5 +109,8 @@ public static class RecordingSummariser
         return analyser;
     }
 
-    private sealed record BeatsResult(IReadOnlyList<Beat> Beats, IReadOnlyList<QualityStretch> Quality, double ReferenceRateHz, double DurationS, IReadOnlyList<string> LeadLabels, string BeatSource);
+    private sealed record BeatsResult(IReadOnlyList<Beat> Beats, IReadOnlyList<QualityStretch> Quality, double ReferenceRateHz, double DurationS, IReadOnlyList<string> LeadLabels, string BeatSource)
+    {
+        public BeatStageTimings? Timings { get; init; }
+    }
 }

@@ -8,7 +8,8 @@ namespace LongRecord.Benchmarks;
 /// <summary>
 /// <c>dotnet run -c Release --project tests/LongRecord.Benchmarks</c> runs the BenchmarkDotNet suites;
 /// <c>-- --short</c> prints quick figures (used by CI: figures only, never a gate);
-/// <c>-- --memory</c> reads a 72 h recording and prints the peak working set.
+/// <c>-- --memory</c> reads a 72 h recording and prints the peak working set;
+/// <c>-- --batch</c> prints the batch issue's figures (<c>--single</c>: the 72 h recording only).
 /// </summary>
 public static class Program
 {
@@ -17,6 +18,12 @@ public static class Program
         if (args.Contains("--short"))
         {
             Short();
+            return 0;
+        }
+
+        if (args.Contains("--batch"))
+        {
+            Batch.BatchBenchmarks.Run(skipFolder: args.Contains("--single"));
             return 0;
         }
 

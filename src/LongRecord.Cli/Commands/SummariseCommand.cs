@@ -1,15 +1,17 @@
 using System.CommandLine;
-using System.Globalization;
 using LongRecord.Analysis.Settings;
 using LongRecord.Formats;
+using LongRecord.Cli.Progress;
 using LongRecord.Pipeline;
+using LongRecord.Pipeline.Batch;
 using LongRecord.Pipeline.Inputs;
 
 namespace LongRecord.Cli.Commands;
 
 /// <summary>
 /// <c>longrecord summarise INPUT… --out DIR</c>: every recording named or found under a folder is analysed into its own
-/// folder <c>DIR/&lt;recording name&gt;/</c>. One bad recording gets one error line and the others go on.
+/// folder <c>DIR/&lt;recording name&gt;/</c>, several at once, skipping those whose fingerprint matches, with an index
+/// of them all. One bad recording gets one error line and the others go on. The work is in <see cref="BatchRunner"/>.
 /// </summary>
 public static class SummariseCommand
 {
@@ -20,9 +22,48 @@ public static class SummariseCommand
         var beats = new Option<string?>("--beats") { Description = "Take beats from an annotation file instead of detecting them: an annotator beside each record's header (qrs, atr, ecg) or a file (WFDB annotations, or a CSV of R times with a time_s or sample column)" };
         var settings = new Option<FileInfo?>("--settings") { Description = "JSON file of analysis thresholds (tachycardia rate, pause lengths, minimum AF episode, windows…); every problem in it is listed before any recording is read. Default: the documented values" };
         var block = new Option<int?>("--block-seconds") { Description = "Seconds of signal read and analysed at a time (results do not depend on it; default about 4 min at 250 Hz)", Hidden = true };
-        var cmd = new Command("summarise", "Analyse recordings: beats (beats.csv, a WFDB annotation file) per recording") { inputs, output, beats, settings, block };
-        cmd.SetAction(parse => CommandRunner.Run(stderr, () =>
-            Run(parse.GetValue(inputs)!, parse.GetValue(output)!.ToString(), parse.GetValue(beats), LoadSettings(parse.GetValue(settings)), parse.GetValue(block), stdout, stderr)));
+        var jobs = new Option<int>("--jobs", "-j") { Description = "Recordings analysed at once (default: the number of cores)", DefaultValueFactory = _ => Environment.ProcessorCount };
+        var shard = new Option<string?>("--shard") { Description = "I/N: take only the I-th of N parts of the whole sorted input list (output folder names as in a run without it), for a scheduler's array job" };
+        var force = new Option<bool>("--force") { Description = "Analyse every recording again, even those whose outputs are up to date" };
+        var quiet = new Option<bool>("--quiet", "-q") { Description = "Print errors only" };
+        var verbose = new Option<bool>("--verbose", "-v") { Description = "Also say when each analysis starts and why it runs" };
+        var timings = new Option<bool>("--timings") { Description = "Print the time spent in each stage, per recording and for the batch" };
+        var cmd = new Command("summarise", "Analyse recordings as a batch: beats and rhythm per recording and an index of them all; resumable, and one recording's failure stops no other")
+        {
+            inputs, output, beats, settings, block, jobs, shard, force, quiet, verbose, timings,
+        };
+        jobs.Validators.Add(r =>
+        {
+            if (r.GetValueOrDefault<int>() < 1)
+            {
+                r.AddError("--jobs must be at least 1");
+            }
+        });
+        cmd.Validators.Add(r =>
+        {
+            if (r.GetValue(quiet) && r.GetValue(verbose))
+            {
+                r.AddError("--quiet and --verbose cannot be used together");
+            }
+
+            if (r.GetValue(shard) is string text && !ShardSpec.TryParse(text, out _, out var problem))
+            {
+                r.AddError(problem);
+            }
+        });
+        cmd.SetAction((parse, cancellation) => Task.FromResult(CommandRunner.Run(stderr, () =>
+        {
+            var options = new SummaryOptions { Beats = parse.GetValue(beats), Settings = LoadSettings(parse.GetValue(settings)) };
+            if (parse.GetValue(block) is int s)
+            {
+                options = options with { BlockSamples = Math.Max(1, s * 250) };
+            }
+
+            ShardSpec.TryParse(parse.GetValue(shard) ?? "1/1", out var part, out _);
+            var batch = new BatchOptions { Jobs = parse.GetValue(jobs), Shard = part, Force = parse.GetValue(force) };
+            var level = parse.GetValue(quiet) ? ProgressLevel.Quiet : parse.GetValue(verbose) ? ProgressLevel.Verbose : ProgressLevel.Normal;
+            return Run(parse.GetValue(inputs)!, parse.GetValue(output)!.ToString(), options, batch, new ProgressSettings(level, parse.GetValue(timings)), stdout, stderr, cancellation);
+        })));
         return cmd;
     }
 
@@ -49,7 +90,8 @@ public static class SummariseCommand
         }
     }
 
-    public static ExitCode Run(IReadOnlyList<string> inputs, string outputRoot, string? beats, AnalysisSettings? settings, int? blockSeconds, TextWriter stdout, TextWriter stderr)
+    /// <summary>Finds the recordings and runs them as a batch (<see cref="BatchRunner"/>) with the display that suits the output.</summary>
+    public static ExitCode Run(IReadOnlyList<string> inputs, string outputRoot, SummaryOptions options, BatchOptions batch, ProgressSettings progress, TextWriter stdout, TextWriter stderr, CancellationToken cancellation = default)
     {
         var found = RecordingDiscovery.Find(inputs);
         if (found.Count == 0)
@@ -57,28 +99,13 @@ public static class SummariseCommand
             throw new UserInputException($"{string.Join(", ", inputs)}: no recordings found");
         }
 
-        var failed = 0;
-        foreach (var input in found)
+        var result = BatchDisplay.Run(stdout, stderr, progress, display => BatchRunner.Run(found, outputRoot, batch with { Summary = options }, display, cancellation));
+        if (result.AnyInternalFault)
         {
-            try
-            {
-                var options = new SummaryOptions { Beats = beats, Settings = settings };
-                if (blockSeconds is int s)
-                {
-                    options = options with { BlockSamples = Math.Max(1, s * 250) };
-                }
-
-                var summary = RecordingSummariser.Summarise(input, outputRoot, options);
-                stdout.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                    $"{input.RelativePath}: {summary.Beats} beats over {summary.DurationS / 3600:0.##} h, {(summary.SignalAnalysed ? $"{summary.Leads} lead(s) at {summary.ReferenceRateHz:0.###} Hz" : "from annotations only, no signal")}{(summary.BeatSource == "detected" ? "" : $" (beats from {Path.GetFileName(summary.BeatSource)})")} → {summary.OutputFolder}"));
-            }
-            catch (RecordingFormatException e)
-            {
-                stderr.WriteLine(e.Message);
-                failed++;
-            }
+            return ExitCode.Internal;
         }
 
-        return failed == 0 ? ExitCode.Ok : found.Count == 1 ? ExitCode.BadInput : ExitCode.SomeFailed;
+        // A single recording that fails is plain bad input; in a batch, the others were done.
+        return result.Failed == 0 ? ExitCode.Ok : found.Count == 1 ? ExitCode.BadInput : ExitCode.SomeFailed;
     }
 }

@@ -69,8 +69,9 @@ public sealed class SummariseCommandTests
         Assert.Equal(3, code);
         var err = stderr.Split('\n', StringSplitOptions.RemoveEmptyEntries);
         Assert.Single(err);
-        Assert.StartsWith(input.Path("cut.edf") + ": ", err[0]);
-        Assert.Equal(new[] { "good" }, Directory.GetFileSystemEntries(output.FullPath).Select(Path.GetFileName));
+        // Logs name recordings relative to their input root (batch issue, "no patient identifiers in logs").
+        Assert.StartsWith("cut.edf: ", err[0]);
+        Assert.Equal(new[] { "good" }, Directory.GetDirectories(output.FullPath).Select(Path.GetFileName));
     }
 
     [Fact]
@@ -81,7 +82,7 @@ public sealed class SummariseCommandTests
         var (code, _, stderr) = Run("summarise", hea, "--out", output.FullPath);
         Assert.Equal(2, code);
         Assert.Contains("no signal file", stderr);
-        Assert.Empty(Directory.GetFileSystemEntries(output.FullPath));
+        Assert.Empty(Directory.GetDirectories(output.FullPath));
 
         (code, var stdout, stderr) = Run("summarise", hea, "--beats", "qrs", "--out", output.FullPath);
         Assert.True(code == 0, stderr);

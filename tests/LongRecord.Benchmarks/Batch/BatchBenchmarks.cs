@@ -1,0 +1,197 @@
+using System.Diagnostics;
+using System.Globalization;
+using LongRecord.Formats;
+using LongRecord.Pipeline;
+using LongRecord.Pipeline.Batch;
+using LongRecord.Pipeline.Inputs;
+using LongRecord.Synthesis;
+using LongRecord.Synthesis.Export;
+using LongRecord.Synthesis.Model;
+using LongRecord.Synthesis.Scenarios;
+
+namespace LongRecord.Benchmarks.Batch;
+
+/// <summary>
+/// The batch issue's speed and memory figures, printed (never a gate): the whole summary of a 72 h, 3-lead, 256 Hz
+/// recording (199 M samples) against a bare decode pass over the same file in the same run, its peak memory, and a
+/// folder of 8 recordings of 24 h with two jobs. Recordings are synthesised once from the demo scenario into the
+/// benchmark folder and reused.
+/// </summary>
+public static class BatchBenchmarks
+{
+    private static readonly string s_folder = Path.Combine(Formats.BenchmarkRecordings.Folder, "batch");
+
+    public static void Run(bool skipFolder)
+    {
+        var big = Recording72h();
+        var days = skipFolder ? [] : EightDays();
+
+        // A bare decode pass: every sample of the three leads in 1-min blocks, nothing else. Second pass timed (file cached).
+        var decodeS = double.MaxValue;
+        for (var i = 0; i < 2; i++)
+        {
+            var sw = Stopwatch.StartNew();
+            DecodeAll(big);
+            decodeS = Math.Min(decodeS, sw.Elapsed.TotalSeconds);
+        }
+
+        var samples = 3L * 72 * 3600 * 256;
+        Line($"bare decode, 72 h 3-lead 256 Hz EDF+ ({samples / 1e6:F0} M samples): {decodeS:F2} s = {samples / decodeS / 1e6:F0} M samples/s");
+
+        using var output = new TempOutput();
+        var input = RecordingDiscovery.Find([big]).Single();
+        ResetPeakMemory();
+        var clock = Stopwatch.StartNew();
+        var entry = BatchRunner.RunOne(input, output.Path, new BatchOptions { Force = true });
+        var wholeS = clock.Elapsed.TotalSeconds;
+        var peakMb = PeakMemoryMb();
+        if (entry.Status != BatchStatus.Done)
+        {
+            throw new InvalidOperationException(entry.Reason);
+        }
+
+        Line($"whole summary of it (fingerprint, beats, rhythm, outputs; no PDF on main yet), one recording: {wholeS:F2} s wall, {wholeS / decodeS:F1}× the bare decode pass; peak resident memory {peakMb:F0} MB");
+        Line($"  {entry.Summary!.Beats} beats; stages: {entry.Timings}");
+        var fingerprintS = Time(() => RecordingFingerprint.Compute(input, new SummaryOptions()));
+        Line($"  of which the fingerprint (SHA-256 of {new FileInfo(big).Length / 1048576.0:F0} MB and its side files): {fingerprintS:F2} s");
+
+        if (days.Count > 0)
+        {
+            using var dayOutput = new TempOutput();
+            var inputs = RecordingDiscovery.Find([Path.GetDirectoryName(days[0])!]);
+            ResetPeakMemory();
+            clock.Restart();
+            var result = BatchRunner.Run(inputs, dayOutput.Path, new BatchOptions { Jobs = 2, Force = true });
+            var batchS = clock.Elapsed.TotalSeconds;
+            Line($"folder of {inputs.Count} recordings of 24 h (2-lead 250 Hz), --jobs 2: {batchS:F1} s wall ({result.Done} done, {result.Failed} failed); peak resident memory {PeakMemoryMb():F0} MB");
+            Line($"  summed stages: {result.TotalTimings()}");
+            clock.Restart();
+            BatchRunner.Run(inputs, dayOutput.Path, new BatchOptions { Jobs = 2 });
+            Line($"  the same folder again, every recording unchanged (fingerprints only): {clock.Elapsed.TotalSeconds:F1} s");
+        }
+
+        Line($"machine: {Environment.ProcessorCount} cores, load average {File.ReadAllText("/proc/loadavg").Split(' ')[0]} when finished");
+    }
+
+    private static double Time(Action work)
+    {
+        var sw = Stopwatch.StartNew();
+        work();
+        return sw.Elapsed.TotalSeconds;
+    }
+
+    private static void DecodeAll(string path)
+    {
+        using var reader = RecordingOpener.Open(path);
+        var n = reader.Info.Channels[0].SampleCount;
+        int[] channels = [0, 1, 2];
+        var block = 60 * 256;
+        var buffer = new float[channels.Length * block];
+        for (long s = 0; s < n; s += block)
+        {
+            var c = (int)Math.Min(block, n - s);
+            reader.Read(channels, s, c, buffer.AsSpan(0, channels.Length * c));
+        }
+    }
+
+    private static string Recording72h()
+    {
+        var path = Path.Combine(s_folder, "single", "holter-72h-3lead-256hz.edf");
+        if (!File.Exists(path))
+        {
+            Directory.CreateDirectory(Path.GetDirectoryName(path)!);
+            var scenario = DemoScenario() with
+            {
+                SamplingRateHz = 256,
+                Leads = [new ScenarioLead("ECG1", LeadView.II), new ScenarioLead("ECG2", LeadView.V1), new ScenarioLead("ECG3", LeadView.V5)],
+            };
+            Write(scenario, 72, path);
+        }
+
+        return path;
+    }
+
+    private static IReadOnlyList<string> EightDays()
+    {
+        var paths = new List<string>();
+        for (var i = 1; i <= 8; i++)
+        {
+            var path = Path.Combine(s_folder, "eight-days", $"day-{i}.edf");
+            if (!File.Exists(path))
+            {
+                Directory.CreateDirectory(Path.GetDirectoryName(path)!);
+                Write(DemoScenario() with { Seed = (ulong)(100 + i) }, 24, path);
+            }
+
+            paths.Add(path);
+        }
+
+        return paths;
+    }
+
+    private static void Write(Scenario scenario, double hours, string path)
+    {
+        Line($"synthesising {Path.GetFileName(path)} ({hours} h) once…");
+        SyntheticRecordingExport.Write(SyntheticRecording.Create(scenario, new SynthesisOptions { Hours = hours }), path);
+    }
+
+    private static Scenario DemoScenario()
+    {
+        for (var d = new DirectoryInfo(AppContext.BaseDirectory); d is not null; d = d.Parent)
+        {
+            var p = Path.Combine(d.FullName, "fixtures", "scenarios", "demo-24h.json");
+            if (File.Exists(p))
+            {
+                return ScenarioLoader.Load(p);
+            }
+        }
+
+        throw new FileNotFoundException($"fixtures/scenarios/demo-24h.json not found above {AppContext.BaseDirectory}");
+    }
+
+    // Linux: writing 5 to clear_refs resets the peak resident set (VmHWM), so synthesis before it does not count.
+    private static void ResetPeakMemory()
+    {
+        GC.Collect();
+        GC.WaitForPendingFinalizers();
+        GC.Collect();
+        try
+        {
+            File.WriteAllText("/proc/self/clear_refs", "5");
+        }
+        catch (IOException)
+        {
+        }
+        catch (UnauthorizedAccessException)
+        {
+        }
+    }
+
+    private static double PeakMemoryMb()
+    {
+        foreach (var line in File.ReadLines("/proc/self/status"))
+        {
+            if (line.StartsWith("VmHWM:", StringComparison.Ordinal))
+            {
+                return double.Parse(line[6..].Trim().Split(' ')[0], CultureInfo.InvariantCulture) / 1024;
+            }
+        }
+
+        return Process.GetCurrentProcess().PeakWorkingSet64 / 1048576.0;
+    }
+
+    private static void Line(string text) => Console.WriteLine("benchmark batch: " + text);
+
+    private sealed class TempOutput : IDisposable
+    {
+        public string Path { get; } = System.IO.Path.Combine(System.IO.Path.GetTempPath(), $"longrecord-bench-out-{Guid.NewGuid():N}");
+
+        public void Dispose()
+        {
+            if (Directory.Exists(Path))
+            {
+                Directory.Delete(Path, recursive: true);
+            }
+        }
+    }
+}
