@@ -16,7 +16,7 @@ namespace LongRecord.Pipeline;
 /// </summary>
 public static class RecordingSummariser
 {
-    public static RecordingSummary Summarise(RecordingInput input, string outputRoot, SummaryOptions? options = null, CancellationToken cancellation = default)
+    public static RecordingSummary Summarise(RecordingInput input, string outputRoot, SummaryOptions? options = null, CancellationToken cancellation = default, Report.ReportOptions? report = null)
     {
         options ??= new SummaryOptions();
         var a = Analyse(input.Path, options, cancellation);
@@ -30,6 +30,7 @@ public static class RecordingSummariser
         var description = new RecordingDescription(input.Name, a.Info.FormatDetail, a.Info.StartDateTime, a.DurationS, a.ReferenceRateHz,
             a.LeadLabels, a.BeatSource, a.Info.HasSignal);
         SummaryJson.Write(folder.File("summary.json"), description, a.Rhythm, a.Settings);
+        Report.ReportOutputs.Write(folder, input, a, report ?? Report.ReportOptions.Default);
         folder.Commit();
         return new RecordingSummary(input.Name, folder.FinalPath, a.DurationS, a.ReferenceRateHz, a.LeadLabels.Count, a.Beats.Count, a.BeatSource, a.Info.HasSignal)
         {

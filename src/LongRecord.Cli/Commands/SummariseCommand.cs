@@ -21,8 +21,10 @@ public static class SummariseCommand
         var settings = new Option<FileInfo?>("--settings") { Description = "JSON file of analysis thresholds (tachycardia rate, pause lengths, minimum AF episode, windows…); every problem in it is listed before any recording is read. Default: the documented values" };
         var block = new Option<int?>("--block-seconds") { Description = "Seconds of signal read and analysed at a time (results do not depend on it; default about 4 min at 250 Hz)", Hidden = true };
         var cmd = new Command("summarise", "Analyse recordings: beats (beats.csv, a WFDB annotation file) per recording") { inputs, output, beats, settings, block };
+        var report = new ReportCommandOptions();
+        report.AddTo(cmd);
         cmd.SetAction(parse => CommandRunner.Run(stderr, () =>
-            Run(parse.GetValue(inputs)!, parse.GetValue(output)!.ToString(), parse.GetValue(beats), LoadSettings(parse.GetValue(settings)), parse.GetValue(block), stdout, stderr)));
+            Run(parse.GetValue(inputs)!, parse.GetValue(output)!.ToString(), parse.GetValue(beats), LoadSettings(parse.GetValue(settings)), parse.GetValue(block), stdout, stderr, report.Resolve(parse))));
         return cmd;
     }
 
@@ -49,7 +51,7 @@ public static class SummariseCommand
         }
     }
 
-    public static ExitCode Run(IReadOnlyList<string> inputs, string outputRoot, string? beats, AnalysisSettings? settings, int? blockSeconds, TextWriter stdout, TextWriter stderr)
+    public static ExitCode Run(IReadOnlyList<string> inputs, string outputRoot, string? beats, AnalysisSettings? settings, int? blockSeconds, TextWriter stdout, TextWriter stderr, Pipeline.Report.ReportOptions? report = null)
     {
         var found = RecordingDiscovery.Find(inputs);
         if (found.Count == 0)
@@ -58,8 +60,9 @@ public static class SummariseCommand
         }
 
         var failed = 0;
-        foreach (var input in found)
+        foreach (var given in found)
         {
+            var input = report?.Privacy?.Apply(given) ?? given;
             try
             {
                 var options = new SummaryOptions { Beats = beats, Settings = settings };
@@ -68,13 +71,13 @@ public static class SummariseCommand
                     options = options with { BlockSamples = Math.Max(1, s * 250) };
                 }
 
-                var summary = RecordingSummariser.Summarise(input, outputRoot, options);
+                var summary = RecordingSummariser.Summarise(input, outputRoot, options, report: report);
                 stdout.WriteLine(string.Create(CultureInfo.InvariantCulture,
                     $"{input.RelativePath}: {summary.Beats} beats over {summary.DurationS / 3600:0.##} h, {(summary.SignalAnalysed ? $"{summary.Leads} lead(s) at {summary.ReferenceRateHz:0.###} Hz" : "from annotations only, no signal")}{(summary.BeatSource == "detected" ? "" : $" (beats from {Path.GetFileName(summary.BeatSource)})")} → {summary.OutputFolder}"));
             }
             catch (RecordingFormatException e)
             {
-                stderr.WriteLine(e.Message);
+                stderr.WriteLine(report?.Privacy?.Redact(e.Message, given, e) ?? e.Message);
                 failed++;
             }
         }

@@ -1,0 +1,60 @@
+namespace LongRecord.Reporting.Model;
+
+/// <summary>
+/// Gives the renderer the signal of one strip window at a time (the Pipeline reads it from the recording), so the
+/// report never holds more than one window of signal.
+/// </summary>
+public interface IStripSource
+{
+    /// <summary>Labels of the leads each window holds, in order.</summary>
+    IReadOnlyList<string> LeadLabels { get; }
+
+    /// <summary>
+    /// The signal from <paramref name="startS"/> for <paramref name="durationS"/> seconds (clipped to the recording).
+    /// The returned object may be reused by the next call.
+    /// </summary>
+    StripSignal Read(double startS, double durationS);
+}
+
+/// <summary>One window of signal: every lead in millivolts (NaN where not recorded), and the beats inside it.</summary>
+public sealed class StripSignal
+{
+    public StripSignal(int leads, int capacity)
+    {
+        Leads = leads;
+        Samples = new float[leads * capacity];
+    }
+
+    public int Leads { get; }
+
+    /// <summary>Samples per lead in this window.</summary>
+    public int Count { get; set; }
+
+    public double StartS { get; set; }
+
+    public double SamplingRateHz { get; set; }
+
+    /// <summary>Lead after lead: lead k's samples at k × <see cref="Count"/>.</summary>
+    public float[] Samples { get; private set; }
+
+    public List<StripBeat> Beats { get; } = [];
+
+    public ReadOnlySpan<float> Lead(int k) => Samples.AsSpan(k * Count, Count);
+
+    /// <summary>Makes room for <paramref name="count"/> samples per lead.</summary>
+    public void Reset(double startS, double rateHz, int count)
+    {
+        if (Samples.Length < Leads * count)
+        {
+            Samples = new float[Leads * count];
+        }
+
+        StartS = startS;
+        SamplingRateHz = rateHz;
+        Count = count;
+        Beats.Clear();
+    }
+}
+
+/// <summary>A beat inside a strip: its time and its class letter.</summary>
+public readonly record struct StripBeat(double TimeS, char Label);
