@@ -17,7 +17,7 @@ public sealed class EpisodeTablePage : IReportSection
 
     private static readonly (string Title, float Width)[] s_columns =
     [
-        ("rank", 10), ("kind", 25), ("start", 23), ("duration", 17), ("beats", 13), ("rate mean / max", 21),
+        ("rank", 10), ("kind", 25), ("start", 23), ("duration", 17), ("beats", 13), ("rate, bpm", 21),
         ("QRS", 24), ("rhythm", 16), ("onset / end seen", 22), ("review", 15),
     ];
 

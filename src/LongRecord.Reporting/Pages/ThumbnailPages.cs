@@ -10,7 +10,7 @@ public sealed class ThumbnailPages : IReportSection
 {
     private const float HeadingMm = 4.6f;
     private const float PaperMm = 20;
-    private const float GapMm = 3.4f;
+    private const float GapMm = 2.8f;
     private static float RowMm => HeadingMm + StripPanel.LabelBandMm + PaperMm + GapMm;
 
     private IReadOnlyList<Thumbnail>? _plan;

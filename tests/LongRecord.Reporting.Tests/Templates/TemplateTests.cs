@@ -70,4 +70,22 @@ public sealed class TemplateTests
         Assert.Contains("5 episodes, 3 flagged for review", text);
         Assert.Contains("draws the first 1 of 3", text);
     }
+
+    [Fact]
+    public void CommandLine_TemplateByPath_IsUsed_AndABadOneIsOneLineUserError()
+    {
+        using var folder = new TempFolder("template");
+        var edf = folder.Path("rec.edf");
+        CommandLine.Check("synth", "sinus-rest", "--out", edf, "--hours", "0.02");
+        var only = folder.Write("overview-only.json", """{ "name": "overview-only", "sections": ["overview"] }"""u8.ToArray());
+        CommandLine.Check("summarise", edf, "--out", folder.Path("out"), "--template", only);
+        Assert.Equal(1, Poppler.Pages(folder.Path("out/rec/report.pdf")));
+
+        var bad = folder.Write("bad.json", """{ "name": "bad", "sections": [] }"""u8.ToArray());
+        var (code, _, stderr) = CommandLine.Run("summarise", edf, "--out", folder.Path("out2"), "--template", bad);
+        Assert.Equal(2, code);
+        var line = Assert.Single(stderr.Split('\n', StringSplitOptions.RemoveEmptyEntries));
+        Assert.StartsWith(bad + ": ", line);
+        Assert.False(Directory.Exists(folder.Path("out2")));
+    }
 }
