@@ -150,25 +150,3 @@ public sealed class Pseudonyms
         public List<PseudonymEntry>? Pseudonyms { get; set; }
     }
 }
-
-/// <summary>One line of the mapping kept in the key file.</summary>
-public sealed class PseudonymEntry
-{
-    [System.Text.Json.Serialization.JsonPropertyName("pseudonym")]
-    public string Pseudonym { get; set; } = "";
-
-    [System.Text.Json.Serialization.JsonPropertyName("relative_path")]
-    public string RelativePath { get; set; } = "";
-
-    [System.Text.Json.Serialization.JsonPropertyName("patient_name")]
-    public string? PatientName { get; set; }
-
-    [System.Text.Json.Serialization.JsonPropertyName("patient_id")]
-    public string? PatientId { get; set; }
-
-    [System.Text.Json.Serialization.JsonPropertyName("birth_date")]
-    public string? BirthDate { get; set; }
-}
-
-/// <summary>A key file that cannot be used.</summary>
-public sealed class PseudonymKeyException(string message) : Exception(message);

@@ -15,8 +15,9 @@ public static class DistributionsBuilder
     private const double HistogramMinBpm = 20, HistogramStepBpm = 5;
     private const int HistogramBins = 46;
 
-    // Bins of at least a minute, and no more than about 4 400 of them (72 h at one a minute) so the plot stays light.
+    // Bins of at least 10 s, and no more than about 4 400 of them (72 h at one a minute) so the plot stays light.
     private const int MaxTachogramBins = 4400;
+    private const double MinTachogramBinS = 10;
 
     public static RhythmDistributions Build(IReadOnlyList<Beat> beats, double rateHz, double durationS, double maxGapS)
     {
@@ -25,7 +26,7 @@ public static class DistributionsBuilder
             return RhythmDistributions.Empty;
         }
 
-        var binS = 60.0 * Math.Max(1, Math.Ceiling(durationS / 60 / MaxTachogramBins));
+        var binS = MinTachogramBinS * Math.Max(1, Math.Ceiling(durationS / MinTachogramBinS / MaxTachogramBins));
         var bins = (int)Math.Ceiling(durationS / binS);
         var min = new float[bins];
         var max = new float[bins];

@@ -177,7 +177,7 @@ public sealed class OverviewPage : IReportSection
 
         if (list.Count > maxRows)
         {
-            p.Text($"… and {list.Count - maxRows} more; each has a strip in the strips section.", cols[1], y, BodyPt, Ink.Muted);
+            p.Text($"… and {list.Count - maxRows} more events in the recording.", cols[1], y, BodyPt, Ink.Muted);
             y += RowMm;
         }
 

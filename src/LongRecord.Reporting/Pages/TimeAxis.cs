@@ -3,12 +3,12 @@ using System.Globalization;
 namespace LongRecord.Reporting.Pages;
 
 /// <summary>
-/// The trend pages' horizontal axis: the whole recording, ticks on whole clock hours as recorded (or elapsed hours
-/// when the file has no start time), spaced so that at most about a dozen are labelled.
+/// The trend pages' horizontal axis: the whole recording, ticks on round clock times as recorded (or round elapsed
+/// times when the file has no start time), from 5 min to 2 days apart so that at most about a dozen are labelled.
 /// </summary>
 public sealed class TimeAxis(DateTime? start, double durationS, float leftMm, float widthMm)
 {
-    private static readonly int[] s_stepsH = [1, 2, 3, 4, 6, 12, 24, 48];
+    private static readonly int[] s_stepsS = [300, 600, 900, 1800, 3600, 7200, 10800, 14400, 21600, 43200, 86400, 172800];
 
     public float Left { get; } = leftMm;
 
@@ -23,14 +23,13 @@ public sealed class TimeAxis(DateTime? start, double durationS, float leftMm, fl
     /// <summary>Tick positions (seconds from the first sample) and their labels.</summary>
     public IReadOnlyList<(double S, string Label)> Ticks()
     {
-        var hours = DurationS / 3600;
-        var step = s_stepsH.FirstOrDefault(h => hours / h <= 12, 96);
+        var step = s_stepsS.FirstOrDefault(h => DurationS / h <= 12, 345600);
         var ticks = new List<(double, string)>();
         if (start is DateTime t0)
         {
-            // First whole hour at or after the start that is a multiple of the step in clock time.
-            var first = t0.Date.AddHours(Math.Ceiling((t0 - t0.Date).TotalHours / step) * step);
-            for (var t = first; (t - t0).TotalSeconds <= DurationS; t = t.AddHours(step))
+            // First clock time at or after the start that is a multiple of the step counted from midnight.
+            var first = t0.Date.AddSeconds(Math.Ceiling((t0 - t0.Date).TotalSeconds / step) * step);
+            for (var t = first; (t - t0).TotalSeconds <= DurationS; t = t.AddSeconds(step))
             {
                 var s = (t - t0).TotalSeconds;
                 var label = t.Hour == 0 ? $"d{(t.Date - t0.Date).Days + 1} 00:00" : t.ToString("HH:mm", CultureInfo.InvariantCulture);
@@ -39,9 +38,9 @@ public sealed class TimeAxis(DateTime? start, double durationS, float leftMm, fl
         }
         else
         {
-            for (var h = 0; h * 3600.0 <= DurationS; h += step)
+            for (var e = 0; e <= DurationS; e += step)
             {
-                ticks.Add((h * 3600.0, $"+{h} h"));
+                ticks.Add((e, step % 3600 == 0 ? $"+{e / 3600} h" : $"+{e / 3600}:{e % 3600 / 60:00}"));
             }
         }
 

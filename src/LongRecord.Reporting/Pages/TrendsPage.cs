@@ -92,7 +92,7 @@ public sealed class TrendsPage : IReportSection
         var p = c.P;
         var d = c.Model.Distributions;
         var chart = new Chart(p, plot, 200, 2000);
-        chart.Frame($"RR tachogram, ms: per {d.TachogramBinS:0} s, line lowest to highest, dot mean", 400);
+        chart.Frame(string.Create(System.Globalization.CultureInfo.InvariantCulture, $"RR tachogram, ms: per {d.TachogramBinS:0} s, line lowest to highest, dot mean"), 400);
         chart.TimeTicks(axis, labels: true);
         using var path = new SKPath();
         for (var i = 0; i < d.RrMeanMs.Length; i++)
@@ -107,7 +107,8 @@ public sealed class TrendsPage : IReportSection
             path.LineTo(x, chart.Y(d.RrMaxMs[i]));
         }
 
-        p.Path(path, Ink.RateBand, Math.Max(0.12f, axis.Width / Math.Max(1, d.RrMeanMs.Length)));
+        // One vertical line per bin, as wide as the bin up to half a millimetre (short recordings have few bins).
+        p.Path(path, Ink.RateBand, Math.Clamp(axis.Width / Math.Max(1, d.RrMeanMs.Length), 0.12f, 0.5f));
         path.Reset();
         for (var i = 0; i < d.RrMeanMs.Length; i++)
         {

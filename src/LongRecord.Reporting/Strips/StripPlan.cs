@@ -4,15 +4,6 @@ using static LongRecord.Reporting.Pages.ReportText;
 
 namespace LongRecord.Reporting.Strips;
 
-/// <summary>A window of signal to draw, with its heading and markers.</summary>
-public sealed record StripWindow(double StartS, double DurationS, IReadOnlyList<StripMarker> Markers);
-
-/// <summary>A thumbnail of one flagged episode: its onset and end, or one window when the episode is short.</summary>
-public sealed record Thumbnail(ReportEpisode Episode, IReadOnlyList<StripWindow> Panels);
-
-/// <summary>A full-size strip: a heading that says why it is there, and its window.</summary>
-public sealed record FullStrip(string Heading, string Detail, StripWindow Window);
-
 /// <summary>
 /// Which strips the report draws. Thumbnails: every flagged episode in rank order (the template may cap how many are
 /// drawn, never which episodes count as flagged). Full size: the top-ranked flagged episodes, then the reference
@@ -84,7 +75,7 @@ public static class StripPlan
                 new StripWindow(Math.Max(0, (pause.StartS + pause.EndS - stripS) / 2), stripS, [new(pause.StartS, "pause"), new(pause.EndS, "end")])));
         }
 
-        foreach (var s in model.Symptoms)
+        foreach (var s in model.Symptoms.Take(template.EventStrips))
         {
             list.Add(new FullStrip($"Patient event: {s.Text}", $"at {Moment(start, s.TimeS)}; rhythm found: {s.Rhythm}; rate {Number(s.RateBpm, 0, "bpm")}",
                 new StripWindow(Math.Max(0, s.TimeS - stripS / 2), stripS, [new(s.TimeS, "event")])));

@@ -32,6 +32,9 @@ public sealed record ReportTemplate
     /// <summary>Full-size strips also for the slowest and fastest rate, the longest pause and each patient event.</summary>
     public bool ReferenceStrips { get; init; } = true;
 
+    /// <summary>At most this many patient-event strips (in time order), so a file with thousands of annotations stays a report.</summary>
+    public int EventStrips { get; init; } = 50;
+
     /// <summary>At most this many rows in the episode table; the rest are counted in a closing line.</summary>
     public int EpisodeRows { get; init; } = 500;
 }

@@ -10,7 +10,7 @@ public static class TemplateLoader
 {
     private const string ResourcePrefix = "report-templates/";
 
-    private static readonly string[] s_keys = ["$schema", "schema", "name", "description", "paper", "header", "sections", "thumbnailStrips", "fullStrips", "referenceStrips", "episodeRows"];
+    private static readonly string[] s_keys = ["$schema", "schema", "name", "description", "paper", "header", "sections", "thumbnailStrips", "fullStrips", "referenceStrips", "eventStrips", "episodeRows"];
 
     /// <summary>Names of the built-in templates.</summary>
     public static IReadOnlyList<string> BuiltInNames { get; } = typeof(TemplateLoader).Assembly.GetManifestResourceNames()
@@ -117,6 +117,7 @@ public static class TemplateLoader
             ThumbnailStrips = Count(root, "thumbnailStrips", 60, 500, problems),
             FullStrips = Count(root, "fullStrips", 8, 200, problems),
             ReferenceStrips = Bool(root, "referenceStrips", true, problems),
+            EventStrips = Count(root, "eventStrips", 50, 500, problems),
             EpisodeRows = Count(root, "episodeRows", 500, 100_000, problems),
         };
         if (template.Header.Count > 4)
