@@ -30,6 +30,8 @@ public static class RecordingSummariser
         var description = new RecordingDescription(input.Name, a.Info.FormatDetail, a.Info.StartDateTime, a.DurationS, a.ReferenceRateHz,
             a.LeadLabels, a.BeatSource, a.Info.HasSignal);
         SummaryJson.Write(folder.File("summary.json"), description, a.Rhythm, a.Settings);
+        Report.ReportOutputs.Write(folder, input, a, options.Report);
+        observer?.Mark("report");
         observer?.Committing(folder.WorkPath);
         folder.Commit();
         observer?.Mark("outputs");

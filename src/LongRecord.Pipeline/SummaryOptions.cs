@@ -14,4 +14,8 @@ public sealed record SummaryOptions
 
     /// <summary>Every analysis threshold (from <c>--settings PATH</c>); null uses the documented defaults.</summary>
     public LongRecord.Analysis.Settings.AnalysisSettings? Settings { get; init; }
+
+    /// <summary>How the report is written (template, de-identification); described in the fingerprint by what it changes.</summary>
+    [System.Text.Json.Serialization.JsonIgnore]
+    public Report.ReportOptions Report { get; init; } = LongRecord.Pipeline.Report.ReportOptions.Default;
 }

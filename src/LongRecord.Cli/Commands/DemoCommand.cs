@@ -1,11 +1,14 @@
 using System.CommandLine;
 using LongRecord.Formats;
+using LongRecord.Pipeline;
+using LongRecord.Pipeline.Inputs;
+using LongRecord.Pipeline.Report;
 
 namespace LongRecord.Cli.Commands;
 
 /// <summary>
-/// <c>longrecord demo [--out DIR]</c>: writes the built-in 24 h two-lead demo recording of an invented patient into a
-/// demo folder and describes it.
+/// <c>longrecord demo [--out DIR]</c>: the whole job on the built-in 24 h two-lead demo day of an invented patient —
+/// synthesise it, describe it, summarise it (beats, rhythm, report) — and print the path of its report.
 /// </summary>
 public static class DemoCommand
 {
@@ -15,16 +18,18 @@ public static class DemoCommand
     {
         var output = new Option<DirectoryInfo>("--out", "-o") { Description = "Folder for the demo files (default: ./longrecord-demo)" };
         var hours = new Option<double?>("--hours") { Description = "Shorten or lengthen the demo day (hours; default 24)" };
-        var cmd = new Command("demo", "Synthesise the 24 h demo recording of an invented patient and describe it") { output, hours };
+        var cmd = new Command("demo", "Run the whole job on the built-in demo day of an invented patient and print the path of its PDF report") { output, hours };
+        var report = new ReportCommandOptions();
+        report.AddTo(cmd);
         cmd.SetAction(parse => CommandRunner.Run(stderr, () =>
         {
             var dir = parse.GetValue(output)?.ToString() ?? "longrecord-demo";
-            return Run(dir, parse.GetValue(hours), stdout);
+            return Run(dir, parse.GetValue(hours), stdout, report.Resolve(parse));
         }));
         return cmd;
     }
 
-    public static ExitCode Run(string folder, double? hours, TextWriter stdout)
+    public static ExitCode Run(string folder, double? hours, TextWriter stdout, ReportOptions? report = null)
     {
         var edf = Path.Combine(folder, "demo-patient.edf");
         stdout.WriteLine($"synthesising the demo day into {folder} …");
@@ -32,8 +37,18 @@ public static class DemoCommand
         stdout.WriteLine($"recording  {paths.Edf}");
         stdout.WriteLine($"truth      {paths.Annotations} (WFDB annotations), {paths.Truth}");
         stdout.WriteLine();
-        using var reader = RecordingOpener.Open(paths.Edf);
-        InspectCommand.Describe(reader, survey: true, stdout);
+        using (var reader = RecordingOpener.Open(paths.Edf))
+        {
+            InspectCommand.Describe(reader, survey: true, stdout);
+        }
+
+        stdout.WriteLine();
+        stdout.WriteLine("analysing (beats, rhythm, report) …");
+        var given = new RecordingInput(paths.Edf, Path.GetFileName(paths.Edf), Path.GetFileNameWithoutExtension(paths.Edf), Path.GetFileNameWithoutExtension(paths.Edf));
+        var input = report?.Privacy?.Apply(given) ?? given;
+        var summary = RecordingSummariser.Summarise(input, Path.Combine(folder, "out"), new SummaryOptions { Report = report ?? ReportOptions.Default });
+        stdout.WriteLine(FormattableString.Invariant($"{summary.Beats} beats over {summary.DurationS / 3600:0.##} h → {summary.OutputFolder}"));
+        stdout.WriteLine($"report     {Path.Combine(summary.OutputFolder, ReportOutputs.PdfName)}");
         return ExitCode.Ok;
     }
 }

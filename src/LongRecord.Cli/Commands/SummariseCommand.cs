@@ -32,6 +32,8 @@ public static class SummariseCommand
         {
             inputs, output, beats, settings, block, jobs, shard, force, quiet, verbose, timings,
         };
+        var report = new ReportCommandOptions();
+        report.AddTo(cmd);
         jobs.Validators.Add(r =>
         {
             if (r.GetValueOrDefault<int>() < 1)
@@ -53,7 +55,7 @@ public static class SummariseCommand
         });
         cmd.SetAction((parse, cancellation) => Task.FromResult(CommandRunner.Run(stderr, () =>
         {
-            var options = new SummaryOptions { Beats = parse.GetValue(beats), Settings = LoadSettings(parse.GetValue(settings)) };
+            var options = new SummaryOptions { Beats = parse.GetValue(beats), Settings = LoadSettings(parse.GetValue(settings)), Report = report.Resolve(parse) };
             if (parse.GetValue(block) is int s)
             {
                 options = options with { BlockSamples = Math.Max(1, s * 250) };
@@ -97,6 +99,12 @@ public static class SummariseCommand
         if (found.Count == 0)
         {
             throw new UserInputException($"{string.Join(", ", inputs)}: no recordings found");
+        }
+
+        // Under --deidentify every recording is its pseudonym from here on: folders, index, logs and error lines.
+        if (options.Report.Privacy is { } privacy)
+        {
+            found = found.Select(privacy.Apply).ToList();
         }
 
         var result = BatchDisplay.Run(stdout, stderr, progress, display => BatchRunner.Run(found, outputRoot, batch with { Summary = options }, display, cancellation));

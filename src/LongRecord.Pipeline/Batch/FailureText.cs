@@ -24,6 +24,13 @@ public static class FailureText
         {
             message = message.Replace(root + Path.DirectorySeparatorChar, "", StringComparison.Ordinal);
         }
+        else
+        {
+            // A pseudonymised input: its real path and folder may name the patient.
+            var full = Path.GetFullPath(input.Path);
+            message = message.Replace(full, BatchNames.Display(input), StringComparison.Ordinal)
+                .Replace(Path.GetDirectoryName(full) + Path.DirectorySeparatorChar, "", StringComparison.Ordinal);
+        }
 
         return $"{BatchNames.Display(input)}: cannot be read ({message.Replace('\r', ' ').Replace('\n', ' ')})";
     }
@@ -41,18 +48,30 @@ public static class FailureText
         }
 
         var root = RootOf(input);
-        return root is not null && full.StartsWith(root + Path.DirectorySeparatorChar, StringComparison.Ordinal)
+        if (root is null)
+        {
+            // A pseudonymised input: name any of its files by the pseudonym alone.
+            return BatchNames.Display(input);
+        }
+
+        return full.StartsWith(root + Path.DirectorySeparatorChar, StringComparison.Ordinal)
             ? Path.GetRelativePath(root, full).Replace('\\', '/')
             : Path.GetFileName(full);
     }
 
-    // The input root: the recording's full path less its relative path.
+    // The input root: the recording's full path less its relative path; null when the relative path is not the end
+    // of the real one (a pseudonym under --deidentify).
     private static string? RootOf(RecordingInput input)
     {
         var full = Path.GetFullPath(input.Path);
         var relative = input.RelativePath.Replace('/', Path.DirectorySeparatorChar);
+        if (full == relative || Path.GetFileName(full) == relative)
+        {
+            return Path.GetDirectoryName(full);
+        }
+
         return full.EndsWith(Path.DirectorySeparatorChar + relative, StringComparison.Ordinal)
             ? full[..^(relative.Length + 1)]
-            : Path.GetDirectoryName(full);
+            : null;
     }
 }

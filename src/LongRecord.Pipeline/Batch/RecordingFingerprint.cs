@@ -57,8 +57,11 @@ public sealed class RecordingFingerprint
             files.Add(new JsonObject
             {
                 ["role"] = file.Role,
-                // Names relative to the recording's folder (or the bare file name): no absolute paths in outputs.
-                ["name"] = (under ? Path.GetRelativePath(folder, file.Path) : Path.GetFileName(file.Path)).Replace('\\', '/'),
+                // Names relative to the recording's folder (or the bare file name): no absolute paths in outputs; under
+                // --deidentify no file names at all (they may name the patient), only the role and the order.
+                ["name"] = options.Report.Privacy is not null
+                    ? $"{file.Role}-{files.Count + 1}"
+                    : (under ? Path.GetRelativePath(folder, file.Path) : Path.GetFileName(file.Path)).Replace('\\', '/'),
                 ["bytes"] = bytes,
                 ["sha256"] = sha,
             });
@@ -151,6 +154,14 @@ public sealed class RecordingFingerprint
             node.Remove(name);
         }
 
+        // The report options by what they change: the template as loaded, and under --deidentify the key's identity.
+        node["Report"] = new JsonObject
+        {
+            ["enabled"] = options.Report.Enabled,
+            ["template"] = JsonSerializer.SerializeToNode(options.Report.Template),
+            ["deidentify"] = options.Report.Privacy is not null,
+            ["key_id"] = options.Report.Privacy?.KeyId,
+        };
         return node;
     }
 

@@ -13,7 +13,7 @@ namespace LongRecord.Cli.Tests.Batch;
 public sealed class BatchFaultIsolationTests
 {
     // Every file summarise writes per recording (README, "What summarise writes"), plus the batch's fingerprint.
-    private static readonly string[] s_outputFiles = ["beats.csv", "episodes.csv", "fingerprint.json", "hourly.csv", "quality.csv", "summary.json"];
+    private static readonly string[] s_outputFiles = ["beats.csv", "episodes.csv", "fingerprint.json", "hourly.csv", "quality.csv", "report.fhir.json", "report.pdf", "summary.json"];
 
     [Fact]
     public void GoodAndBadRecordings_GoodOnesComplete_BadOnesIndexedWithTheirError_ExitThree()
@@ -83,10 +83,10 @@ public sealed class BatchFaultIsolationTests
         // The index shows what summary.json says.
         using var summary = JsonDocument.Parse(File.ReadAllText(Path.Combine(output.FullPath, "af", "summary.json")));
         Assert.Equal(summary.RootElement.GetProperty("af_burden_percent").GetDouble(), double.Parse(byName["af.edf"]["af_burden_percent"], CultureInfo.InvariantCulture), 2);
-        Assert.Equal("af/", byName["af.edf"]["report"]);
+        Assert.Equal("af/report.pdf", byName["af.edf"]["report"]);
 
         var html = File.ReadAllText(Path.Combine(output.FullPath, "index.html"));
-        Assert.Contains("href=\"af/\"", html);
+        Assert.Contains("href=\"af/report.pdf\"", html);
         Assert.Equal(3, html.Split("<tr class=\"failed\">").Length - 1);
         Assert.Contains("[7/7]", stdout);
         // --timings: every stage of each analysed recording, and the batch's sums.

@@ -1,0 +1,114 @@
+using System.Globalization;
+using LongRecord.Analysis.Rhythm;
+using LongRecord.Pipeline.Outputs;
+using LongRecord.Reporting.Model;
+
+namespace LongRecord.Pipeline.Report;
+
+/// <summary>
+/// Builds the report's model from the analysis result that summary.json is written from. Whole-recording figures are
+/// read from the very rows summary.json writes (<see cref="RhythmRows.Summary"/>), so the PDF and the JSON cannot
+/// disagree; what summary.json does not hold (plot series, per-hour shares, the rhythm at each patient event) is
+/// derived here from the same beats and trend rows.
+/// </summary>
+public static class ReportModelMapper
+{
+    /// <summary>Beats either side of a patient event that give the rate shown beside it, s (common practice, no source).</summary>
+    public const double EventRateHalfWindowS = 5;
+
+    public static ReportModel Build(RecordingAnalysis a, string recordingName, ReportPatient patient)
+    {
+        var r = a.Rhythm;
+        var episodes = RhythmEpisodeRows.Map(r, a.Beats, a.ReferenceRateHz, a.Settings);
+        return new ReportModel
+        {
+            Patient = patient,
+            Recording = new ReportRecording(recordingName, a.Info.FormatDetail, a.Info.StartDateTime, a.DurationS, a.ReferenceRateHz, a.LeadLabels, a.BeatSource, a.Info.HasSignal),
+            Figures = Figures(r),
+            Hours = r.Trend.Select(Hour).ToArray(),
+            Episodes = episodes,
+            EpisodeCounts = r.Episodes.GroupBy(e => e.Kind).Select(g => new KeyValuePair<string, int>(g.Key, g.Count())).ToArray(),
+            Symptoms = a.Info.Events.Where(e => !string.IsNullOrWhiteSpace(e.Text)).Select(e => Symptom(e.OnsetS, e.Text.Trim(), r, a)).ToArray(),
+            Distributions = DistributionsBuilder.Build(a.Beats, a.ReferenceRateHz, a.DurationS, a.Settings.Rhythm.MaxBeatGapS),
+            Thresholds = new ReportThresholds(a.Settings.Pauses.ReportS, a.Settings.Pauses.HighlightS, a.Settings.Bradycardia.RateBpm, a.Settings.Bradycardia.MinDurationS, a.Settings.Af.MinEpisodeS),
+            ToolVersion = SummaryJson.ToolVersion,
+        };
+    }
+
+    /// <summary>The figures exactly as summary.json holds them.</summary>
+    public static ReportFigures Figures(RhythmResult r)
+    {
+        var d = RhythmRows.Summary(r).ToDictionary(kv => kv.Key, kv => kv.Value);
+        double? N(string key) => d.TryGetValue(key, out var v) && v is not null ? Convert.ToDouble(v, CultureInfo.InvariantCulture) : null;
+        int I(string key) => Convert.ToInt32(d[key], CultureInfo.InvariantCulture);
+        bool B(string key) => d[key] is true;
+        var s = r.Summary;
+        return new ReportFigures
+        {
+            TotalBeats = I("total_beats"),
+            AnalysablePercent = N("analysable_percent"),
+            AnalysableS = N("analysable_s"),
+            RecordingS = N("recording_s"),
+            HrMinBpm = N("hr_min_bpm"),
+            HrMeanBpm = N("hr_mean_bpm"),
+            HrMaxBpm = N("hr_max_bpm"),
+            Slowest = s.Slowest is { } slow ? new ReportPeriod(slow.StartS, slow.EndS, N("hr_min_bpm") ?? slow.Bpm) : null,
+            Fastest = s.Fastest is { } fast ? new ReportPeriod(fast.StartS, fast.EndS, N("hr_max_bpm") ?? fast.Bpm) : null,
+            AfBurdenPercent = N("af_burden_percent"),
+            AfEpisodeCount = I("af_episode_count"),
+            AfBriefCount = I("af_brief_count"),
+            AfLongestS = N("af_longest_s"),
+            AfAtStart = B("af_at_start"),
+            AfAtEnd = B("af_at_end"),
+            AfBurdenPerDayPercent = s.BurdenPerDay.Select(day => N($"af_burden_day{day.Day}_percent")).ToArray(),
+            PauseCount = I("pause_count"),
+            PauseHighlightedCount = I("pause_highlighted_count"),
+            PauseLongestS = N("pause_longest_s"),
+            BradycardiaCount = I("bradycardia_count"),
+            BeatsByClass = s.BeatsByClass.Keys.Select(c => new KeyValuePair<string, int>(c.ToString(), I($"beats_{c.ToString().ToLowerInvariant()}"))).ToArray(),
+            SdnnMs = N("sdnn_ms"),
+            SdannMs = N("sdann_ms"),
+            SdnnIndexMs = N("sdnn_index_ms"),
+            RmssdMs = N("rmssd_ms"),
+            Pnn50Percent = N("pnn50_percent"),
+            HrvTriangularIndex = N("hrv_triangular_index"),
+            LfMs2 = N("lf_ms2"),
+            HfMs2 = N("hf_ms2"),
+            LfHfRatio = N("lf_hf_ratio"),
+            HrvExcludedS = N("hrv_excluded_s"),
+        };
+    }
+
+    private static ReportHour Hour(TrendRow t) => new()
+    {
+        StartS = t.StartS,
+        EndS = t.EndS,
+        ClockStart = t.ClockStart,
+        AnalysablePercent = t.EndS > t.StartS ? Math.Min(100, 100 * t.AnalysableMinutes * 60 / (t.EndS - t.StartS)) : 0,
+        Sufficient = t.Sufficient,
+        MinBpm = t.MinBpm,
+        MeanBpm = t.MeanBpm,
+        MaxBpm = t.MaxBpm,
+        AfBurdenPercent = t.AfBurdenPercent,
+        Sve = t.Sve,
+        Ve = t.Ve,
+        Pauses = t.Pauses,
+    };
+
+    private static ReportSymptom Symptom(double timeS, string text, RhythmResult r, RecordingAnalysis a)
+    {
+        var covering = r.Episodes.Where(e => e.StartS <= timeS && timeS <= e.EndS).Select(e => e.Kind).Distinct().ToArray();
+        var rhythm = covering.Length > 0 ? string.Join(", ", covering.Select(Reporting.Pages.ReportText.Kind)) : "no episode found";
+        return new ReportSymptom(timeS, text, rhythm, LocalRateBpm(a, timeS));
+    }
+
+    // Mean rate of the beats within the half-window either side: 60 × intervals ÷ their time.
+    private static double LocalRateBpm(RecordingAnalysis a, double timeS)
+    {
+        var from = (timeS - EventRateHalfWindowS) * a.ReferenceRateHz;
+        var to = (timeS + EventRateHalfWindowS) * a.ReferenceRateHz;
+        var i = BeatSearch.FirstAtOrAfter(a.Beats, from);
+        var j = BeatSearch.FirstAtOrAfter(a.Beats, Math.Floor(to) + 1) - 1;
+        return j > i ? 60.0 * (j - i) / ((a.Beats[j].Sample - a.Beats[i].Sample) / a.ReferenceRateHz) : double.NaN;
+    }
+}
