@@ -19,10 +19,12 @@ public static class SummariseCommand
         var output = new Option<DirectoryInfo>("--out", "-o") { Description = "Output folder: one sub-folder per recording", Required = true };
         var beats = new Option<string?>("--beats") { Description = "Take beats from an annotation file instead of detecting them: an annotator beside each record's header (qrs, atr, ecg) or a file (WFDB annotations, or a CSV of R times with a time_s or sample column)" };
         var settings = new Option<FileInfo?>("--settings") { Description = "JSON file of analysis thresholds (tachycardia rate, pause lengths, minimum AF episode, windows…); every problem in it is listed before any recording is read. Default: the documented values" };
+        var diary = new Option<FileInfo?>("--diary") { Description = "Patient diary (CSV with columns time,text; time in seconds from the start or as a local date-time) instead of <recording name>.diary.csv beside each recording: the rhythm and rate at each entry are reported" };
         var block = new Option<int?>("--block-seconds") { Description = "Seconds of signal read and analysed at a time (results do not depend on it; default about 4 min at 250 Hz)", Hidden = true };
-        var cmd = new Command("summarise", "Analyse recordings: beats (beats.csv, a WFDB annotation file) per recording") { inputs, output, beats, settings, block };
+        var cmd = new Command("summarise", "Analyse recordings: beats (beats.csv, a WFDB annotation file) per recording") { inputs, output, beats, settings, diary, block };
         cmd.SetAction(parse => CommandRunner.Run(stderr, () =>
-            Run(parse.GetValue(inputs)!, parse.GetValue(output)!.ToString(), parse.GetValue(beats), LoadSettings(parse.GetValue(settings)), parse.GetValue(block), stdout, stderr)));
+            Run(parse.GetValue(inputs)!, parse.GetValue(output)!.ToString(), parse.GetValue(beats), LoadSettings(parse.GetValue(settings)), parse.GetValue(block), stdout, stderr,
+                DiaryPath(parse.GetValue(diary)))));
         return cmd;
     }
 
@@ -49,7 +51,12 @@ public static class SummariseCommand
         }
     }
 
-    public static ExitCode Run(IReadOnlyList<string> inputs, string outputRoot, string? beats, AnalysisSettings? settings, int? blockSeconds, TextWriter stdout, TextWriter stderr)
+    /// <summary>The diary file named on the command line; a missing file is a user error.</summary>
+    public static string? DiaryPath(FileInfo? file) =>
+        file is null ? null : file.Exists ? file.FullName : throw new UserInputException($"{file}: diary file not found");
+
+    public static ExitCode Run(IReadOnlyList<string> inputs, string outputRoot, string? beats, AnalysisSettings? settings, int? blockSeconds, TextWriter stdout, TextWriter stderr,
+        string? diary = null)
     {
         var found = RecordingDiscovery.Find(inputs);
         if (found.Count == 0)
@@ -62,7 +69,7 @@ public static class SummariseCommand
         {
             try
             {
-                var options = new SummaryOptions { Beats = beats, Settings = settings };
+                var options = new SummaryOptions { Beats = beats, Settings = settings, Diary = diary };
                 if (blockSeconds is int s)
                 {
                     options = options with { BlockSamples = Math.Max(1, s * 250) };
