@@ -15,6 +15,7 @@ internal static class AtrialActivity
     private const double FlutterLowHz = 3.5, FlutterHighHz = 6.2;
     private const double LockedLowBpm = 200, LockedHighBpm = 380;
     private const double ClusterTolerance = 0.12;
+    private const int MinClusterIntervals = 20;
 
     public static AtrialFinding Measure(IReadOnlyList<SignalWindow> windows, BeatTrack t, int first, int last, RrRegularity regularity, EpisodeSettings s)
     {
@@ -110,7 +111,9 @@ internal static class AtrialActivity
                 var (peakHz, share, band) = AtrialSpectrum.Describe(spectrum);
                 peakShare = share;
                 bandShare = band;
-                if (peakHz >= FlutterLowHz && peakHz <= FlutterHighHz && share >= s.FlutterPeakShare)
+                // A peak in the flutter range that is sharp, or that the RR intervals fall at whole multiples of (in
+                // noise the peak's share of the band drops; the clustering of 20 or more RR does not happen by chance).
+                if (peakHz >= FlutterLowHz && peakHz <= FlutterHighHz && (share >= s.FlutterPeakShare || regularity.Intervals >= MinClusterIntervals))
                 {
                     var (clusterShare, cycle) = RrRegularity.ClusterAtMultiples(t, first, last, 1 / peakHz, ClusterTolerance);
                     cluster = clusterShare;

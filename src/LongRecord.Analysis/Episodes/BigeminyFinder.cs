@@ -5,7 +5,9 @@ namespace LongRecord.Analysis.Episodes;
 
 /// <summary>
 /// Ventricular bigeminy (N V N V …), ventricular trigeminy (N N V N N V …) and atrial bigeminy (N S N S …): at least
-/// the minimum number of cycles in a row. One deviating cycle between two stretches of the same pattern (a missed or
+/// the minimum number of cycles in a row; an unclassifiable (Q) beat that comes early (and is broad,
+/// for a ventricular pattern) may stand for the ectopic beat when at least one of the chain's ectopic beats carries the
+/// label. One deviating cycle between two stretches of the same pattern (a missed or
 /// misread beat) does not break it. An episode runs from the first normal beat of its first cycle to its last
 /// ectopic beat.
 /// </summary>
@@ -29,7 +31,8 @@ internal static class BigeminyFinder
         var i = period - 1;
         while (i < track.Count)
         {
-            if (!Cycle(track, ectopic, period, i, taken))
+            var c = Cycle(track, ectopic, period, i, taken, s.BroadQrsMs);
+            if (c == Match.None)
             {
                 i++;
                 continue;
@@ -37,13 +40,21 @@ internal static class BigeminyFinder
 
             var last = i;
             var cycles = 1;
-            while (last + period < track.Count && Cycle(track, ectopic, period, last + period, taken))
+            var labelled = c == Match.Labelled ? 1 : 0;
+            while (last + period < track.Count && Cycle(track, ectopic, period, last + period, taken, s.BroadQrsMs) is var next && next != Match.None)
             {
                 last += period;
                 cycles++;
+                labelled += next == Match.Labelled ? 1 : 0;
             }
 
-            chains.Add((i - (period - 1), last, cycles));
+            // At least one ectopic beat carries the ectopic label; the rest may be premature unclassifiable beats
+            // (broad ones, for a ventricular pattern).
+            if (labelled >= 1)
+            {
+                chains.Add((i - (period - 1), last, cycles));
+            }
+
             i = last + 1;
         }
 
@@ -77,23 +88,42 @@ internal static class BigeminyFinder
         }
     }
 
-    // Beat e is ectopic and the period − 1 beats before it are normal, all intervals analysable and not yet taken.
-    private static bool Cycle(BeatTrack track, BeatClass ectopic, int period, int e, bool[] taken)
+    private enum Match
     {
-        if (track[e].Class != ectopic || taken[e] || !track.HasRr(e))
+        None,
+        Labelled,
+        Premature,
+    }
+
+    // Beat e is ectopic (by label, or an unclassifiable beat that comes early — its RR under 85 % of the one before,
+    // common practice, no source — and is broad for a ventricular pattern) and the period − 1 beats before it are normal, all intervals analysable and not
+    // yet taken.
+    private static Match Cycle(BeatTrack track, BeatClass ectopic, int period, int e, bool[] taken, double broadQrsMs)
+    {
+        if (taken[e] || !track.HasRr(e))
         {
-            return false;
+            return Match.None;
+        }
+
+        var c = track[e].Class;
+        var match = c == ectopic ? Match.Labelled
+            : c == BeatClass.Q && e > 0 && track.HasRr(e - 1) && track.RrS[e] < 0.85 * track.RrS[e - 1]
+                && (ectopic != BeatClass.V || track[e].QrsMs >= broadQrsMs) ? Match.Premature
+            : Match.None;
+        if (match == Match.None)
+        {
+            return Match.None;
         }
 
         for (var k = e - period + 1; k < e; k++)
         {
             if (k < 0 || track[k].Class != BeatClass.N || taken[k] || (k > e - period + 1 && !track.HasRr(k)))
             {
-                return false;
+                return Match.None;
             }
         }
 
-        return true;
+        return match;
     }
 
     private static bool Analysable(BeatTrack track, int from, int to)

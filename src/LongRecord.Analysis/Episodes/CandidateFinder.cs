@@ -32,8 +32,23 @@ internal static class CandidateFinder
             }
         }
 
-        return Merge(list);
+        // A run of ectopic beats inside AF or inside a longer run of fast beats (a run of PACs during a sinus
+        // tachycardia, a ve-run during AF) is an episode of its own, not part of what surrounds it.
+        // In AF, irregular conducted beats are not S beats: an S run there stays part of the AF.
+        var inside = list.Where(c => c.Source is CandidateSource.VeRun or CandidateSource.SveRun && list.Any(a => Surrounds(a, c))
+            && !(c.Source == CandidateSource.SveRun && list.Any(a => a.Source == CandidateSource.RhythmAf && a.Overlaps(c)))).ToList();
+        list.RemoveAll(inside.Contains);
+        var merged = Merge(list);
+        merged.AddRange(inside);
+        merged.Sort((a, b) => a.First.CompareTo(b.First));
+        return merged;
     }
+
+    // AF around a ventricular run, or a run of fast beats more than twice as long as an ectopic run.
+    private static bool Surrounds(Candidate a, Candidate run) =>
+        a.Overlaps(run) && (run.Source == CandidateSource.VeRun
+            ? a.Source == CandidateSource.RhythmAf || (a.Source == CandidateSource.Fast && a.BeatCount > 2 * run.BeatCount)
+            : a.Source == CandidateSource.Fast && a.BeatCount > 2 * run.BeatCount);
 
     /// <summary>Merges overlapping candidates (transitively).</summary>
     public static List<Candidate> Merge(List<Candidate> list)
@@ -55,47 +70,64 @@ internal static class CandidateFinder
         return merged;
     }
 
+    // Runs of at least the minimum run of consecutive fast intervals, merged across interruptions of a few slower
+    // beats. Consecutive, so that the short coupling intervals of bigeminy (fast, slow, fast, slow) make no run.
     private static void FastRuns(BeatTrack track, EpisodeSettings s, List<Candidate> list)
     {
         var fastRrS = 60.0 / s.TachycardiaRateBpm;
-        int first = -1, lastFast = -1, fastCount = 0, slow = 0;
-        for (var i = 1; i < track.Count; i++)
+        int first = -1, last = -1, runStart = -1;
+        for (var i = 1; i <= track.Count; i++)
         {
-            var analysable = track.HasRr(i);
+            var analysable = i < track.Count && track.HasRr(i);
             var fast = analysable && track.RrS[i] < fastRrS;
-            if (first >= 0 && (!analysable || (!fast && slow + 1 > s.MergeGapBeats)))
-            {
-                Close(track, s, list, first, lastFast, fastCount);
-                first = -1;
-            }
-
             if (fast)
             {
-                if (first < 0)
-                {
-                    first = i;
-                    fastCount = 0;
-                }
-
-                fastCount++;
-                lastFast = i;
-                slow = 0;
+                runStart = runStart < 0 ? i : runStart;
+                continue;
             }
-            else if (first >= 0)
+
+            // A run of consecutive fast intervals ended at beat i − 1.
+            if (runStart >= 0 && i - runStart >= s.RunMinimumBeats)
             {
-                slow++;
+                if (first >= 0 && runStart - last - 1 <= s.MergeGapBeats && Analysable(track, last, runStart))
+                {
+                    last = i - 1;
+                }
+                else
+                {
+                    Close(track, s, list, first, last);
+                    first = runStart;
+                    last = i - 1;
+                }
+            }
+
+            runStart = -1;
+            if (!analysable && first >= 0)
+            {
+                Close(track, s, list, first, last);
+                first = -1;
             }
         }
 
-        if (first >= 0)
-        {
-            Close(track, s, list, first, lastFast, fastCount);
-        }
+        Close(track, s, list, first, last);
     }
 
-    private static void Close(BeatTrack track, EpisodeSettings s, List<Candidate> list, int first, int last, int fastCount)
+    private static bool Analysable(BeatTrack track, int from, int to)
     {
-        if (fastCount < s.RunMinimumBeats)
+        for (var i = from + 1; i <= to; i++)
+        {
+            if (!track.HasRr(i))
+            {
+                return false;
+            }
+        }
+
+        return true;
+    }
+
+    private static void Close(BeatTrack track, EpisodeSettings s, List<Candidate> list, int first, int last)
+    {
+        if (first < 0)
         {
             return;
         }

@@ -38,9 +38,10 @@ public static class EpisodeAnalyser
         var episodes = drafts.Select(d => d.Episode).ToList();
         foreach (var (first, last, kind, cycles) in BigeminyFinder.Find(track, s))
         {
-            // An alternating pattern inside AF, flutter or a tachycardia is that rhythm's irregularity, not bigeminy.
+            // Alternating S labels inside AF, flutter or a supraventricular tachycardia are that rhythm's irregularity,
+            // not atrial bigeminy; ventricular beats keep their bigeminy whatever the rhythm underneath.
             var b = Bigeminy(track, first, last, kind, cycles, settings);
-            if (!drafts.Any(d => d.Episode.Beats >= 8 && Overlap(d.Episode, b) >= 0.5 * b.DurationS))
+            if (kind != EpisodeKinds.AtrialBigeminy || !drafts.Any(d => d.Episode.Beats >= 8 && Overlap(d.Episode, b) >= 0.5 * b.DurationS))
             {
                 episodes.Add(b);
             }

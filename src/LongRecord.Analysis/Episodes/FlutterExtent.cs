@@ -5,7 +5,8 @@ namespace LongRecord.Analysis.Episodes;
 /// <summary>
 /// Flutter with variable conduction keeps its flutter cycle while the ventricular rate falls below the tachycardia rate
 /// (3:1, 4:1 stretches) and the rhythm stage may see only pieces of it. A flutter episode is therefore extended beat by
-/// beat, both ways, while the RR stays a whole number (≥ 2) of flutter cycles, and flutter episodes that then meet or
+/// beat, both ways, while the RR stays a whole number (≥ 2) of flutter cycles (one interval off is bridged when the
+/// next three are on), and flutter episodes that then meet or
 /// overlap become one; other candidates wholly inside it are absorbed.
 /// </summary>
 internal static class FlutterExtent
@@ -26,12 +27,15 @@ internal static class FlutterExtent
             var cycle = 60 / d.Episode.Atrial.AtrialRateBpm;
             var first = d.First;
             var last = d.Last;
-            while (first > 0 && Multiple(t, first, cycle))
+            // One interval off the multiples (a beat placed a little late in noise) does not end it when the next
+            // three are on them again.
+            while (first > 0 && (Multiple(t, first, cycle) || (first > 3 && Multiple(t, first - 1, cycle) && Multiple(t, first - 2, cycle) && Multiple(t, first - 3, cycle))))
             {
                 first--;
             }
 
-            while (last + 1 < t.Count && Multiple(t, last + 1, cycle))
+            while (last + 1 < t.Count && (Multiple(t, last + 1, cycle)
+                || (last + 4 < t.Count && Multiple(t, last + 2, cycle) && Multiple(t, last + 3, cycle) && Multiple(t, last + 4, cycle))))
             {
                 last++;
             }

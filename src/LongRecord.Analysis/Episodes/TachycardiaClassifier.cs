@@ -44,6 +44,11 @@ internal static class TachycardiaClassifier
             e.Add(Invariant($"atrial rate {f.Atrial.AtrialRateBpm:0}/min"));
         }
 
+        if (!double.IsNaN(f.Atrial.ClusterShare))
+        {
+            e.Add(Invariant($"RR at multiples of the atrial cycle {100 * f.Atrial.ClusterShare:0} % (peak share {100 * f.Atrial.PeakShare:0} %)"));
+        }
+
         if (f.AfShare > 0)
         {
             e.Add(Invariant($"rhythm stage AF over {100 * f.AfShare:0} %"));
@@ -66,8 +71,12 @@ internal static class TachycardiaClassifier
         var fast = f.MeanBpm >= s.TachycardiaRateBpm;
         var byRhythmStage = f.AfShare >= 0.5;
 
-        // Extra detections in noise: beats of one-off morphologies that split normal intervals. Not an episode.
-        if (!byRhythmStage && (f.OddTemplateShare >= 0.5 || (f.OddTemplateShare >= 0.25 && f.SplitShare >= 0.3)))
+        // Extra detections in noise: beats of one-off morphologies that split normal intervals. Not an episode. A run
+        // the beats stage labelled ectopic beat by beat (ventricular runs often have shapes of their own) needs the
+        // split intervals too.
+        var labelledRun = (f.Source.HasFlag(CandidateSource.VeRun) && f.VShare >= 0.5) || (f.Source.HasFlag(CandidateSource.SveRun) && f.SShare >= 0.5);
+        var oneOff = labelledRun ? f.OddTemplateShare >= 0.25 && f.SplitShare >= 0.3 : f.OddTemplateShare >= 0.5 || (f.OddTemplateShare >= 0.25 && f.SplitShare >= 0.3);
+        if (!byRhythmStage && oneOff)
         {
             e.Add(FormattableString.Invariant($"artefact: {100 * f.OddTemplateShare:0} % one-off shapes, {100 * f.SplitShare:0} % split intervals"));
             return (null, 0);
@@ -183,6 +192,14 @@ internal static class TachycardiaClassifier
         if (a.PBeforeShare >= s.PBeforeQrsShare)
         {
             return (EpisodeKinds.SinusTachycardia, 0.4);
+        }
+
+        // A short narrow run that starts abruptly is a run of supraventricular ectopic beats even when the beats stage
+        // did not label them S (the kind rule: consecutive ectopic beats above the tachycardia rate under 30 s).
+        if (f.DurationS < s.SustainedS && f.Onset.Type == "abrupt")
+        {
+            e.Add("short run with an abrupt onset");
+            return (EpisodeKinds.SveRun, 0.4);
         }
 
         return (EpisodeKinds.UnclassifiedTachycardia, 0.3);
