@@ -8,7 +8,8 @@ namespace LongRecord.Benchmarks;
 /// <summary>
 /// <c>dotnet run -c Release --project tests/LongRecord.Benchmarks</c> runs the BenchmarkDotNet suites;
 /// <c>-- --short</c> prints quick figures (used by CI: figures only, never a gate);
-/// <c>-- --memory</c> reads a 72 h recording and prints the peak working set.
+/// <c>-- --memory</c> reads a 72 h recording and prints the peak working set;
+/// <c>-- --episodes</c> times beats, rhythm and episodes of the 24 h demo day.
 /// </summary>
 public static class Program
 {
@@ -17,6 +18,12 @@ public static class Program
         if (args.Contains("--short"))
         {
             Short();
+            return 0;
+        }
+
+        if (args.Contains("--episodes"))
+        {
+            EpisodeBenchmarks.Short();
             return 0;
         }
 
