@@ -73,13 +73,14 @@ internal static class CandidateDescriber
     public static ClassifierFacts Facts(Candidate c, BeatTrack t, int first, int last, IReadOnlyList<SignalWindow> windows, EpisodeSettings s)
     {
         var regularity = RrRegularity.Of(t, first, last);
-        int v = 0, sv = 0, premature = 0;
+        int v = 0, sv = 0, normal = 0, premature = 0;
         var widths = new List<float>();
         for (var i = first; i <= last; i++)
         {
             ref readonly var b = ref t[i];
             v += b.Class == BeatClass.V ? 1 : 0;
             sv += b.Class == BeatClass.S ? 1 : 0;
+            normal += b.Class == BeatClass.N ? 1 : 0;
             premature += b.Class is BeatClass.S or BeatClass.V || (b.Flags & BeatFlags.Premature) != 0 ? 1 : 0;
             if (!float.IsNaN(b.QrsMs))
             {
@@ -118,6 +119,7 @@ internal static class CandidateDescriber
             MeanComplexQrsMs = atrial.MeanComplexQrsMs,
             VShare = (double)v / n,
             SShare = (double)sv / n,
+            NShare = (double)normal / n,
             PrematureShare = (double)premature / n,
             OddTemplateShare = (double)odd / n,
             UsualQrsShare = t.DominantTemplate < 0 ? double.NaN : (double)usual / n,

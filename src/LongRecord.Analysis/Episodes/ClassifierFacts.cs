@@ -16,6 +16,9 @@ internal sealed record ClassifierFacts
     /// <summary>Share of beats of class V, of class S, and premature (S, V or the beats stage's premature flag).</summary>
     public required double VShare { get; init; }
     public required double SShare { get; init; }
+
+    /// <summary>Share of beats of class N.</summary>
+    public required double NShare { get; init; }
     public required double PrematureShare { get; init; }
 
     /// <summary>Share of beats in the recording's usual conducted-QRS template; NaN when templates are unknown.</summary>

@@ -19,7 +19,7 @@ internal static class TachycardiaClassifier
     {
         var e = new List<string>();
         var (width, qrsMs) = Width(f, s);
-        e.Add(width == QrsWidth.Unknown ? "width unknown" : Invariant($"QRS {qrsMs:0} ms {(width == QrsWidth.Broad ? "broad" : "narrow")}"));
+        e.Add(width == QrsWidth.Unknown ? "width unknown" : Invariant($"QRS {qrsMs:0} ms {(width == QrsWidth.Broad ? "broad" : "narrow")} (beats {f.BeatQrsMs:0}, mean complex {f.MeanComplexQrsMs:0})"));
         e.Add(Invariant($"rate {f.MeanBpm:0} bpm (median {f.MedianBpm:0})"));
         var irregular = f.Regularity.SuccessiveChange > s.IrregularRrChange;
         e.Add(Invariant($"{(irregular ? "irregular" : "regular")} (RR change {f.Regularity.SuccessiveChange:0.000}, CV {f.Regularity.Cv:0.000})"));
@@ -104,9 +104,11 @@ internal static class TachycardiaClassifier
             return (EpisodeKinds.UnclassifiedTachycardia, 0.3);
         }
 
-        // A QRS unlike the recording's conducted beats, with ventricular beats among them or no P wave leading them,
-        // is not called supraventricular without evidence.
-        var unusual = f.UsualQrsShare < 0.5 && (f.VShare >= 0.3 || a.PBeforeShare <= s.PAbsentShare);
+        // A QRS unlike the recording's conducted beats, with ventricular beats among them, or with no P wave leading
+        // them and few beats the beats stage could call normal or supraventricular, is not called supraventricular
+        // without evidence; beats labelled S or N (a supraventricular shape) are that evidence.
+        var unusual = f.UsualQrsShare < 0.5 && f.SShare < 0.5
+            && (f.VShare >= 0.3 || (a.PBeforeShare <= s.PAbsentShare && f.NShare + f.SShare < 0.5));
         if (width == QrsWidth.Broad || f.VShare >= 0.5 || unusual)
         {
             if (width != QrsWidth.Broad)

@@ -50,7 +50,7 @@ public sealed class MitdbEpisodeTests(ITestOutputHelper output)
         Assert.True(tp >= 0.80 * n, line);
     }
 
-    [Fact(Skip = "not reached: MITDB (VT overlapped by ve-run or broad-tachycardia 50.8 % (31/61) < 90 %: VT inside AF (203) and beside bigeminy (200, 223) where the beats stage does not label three V in a row")]
+    [Fact(Skip = "not reached: MITDB (VT overlapped by ve-run or broad-tachycardia 45.9 % (28/61) < 90 %: VT inside AF (203) and beside bigeminy (200, 223) where the beats stage does not label three V in a row")]
     public void Vt_OverlappedByVeRunOrBroadTachycardia_AtLeast90()
     {
         var (found, total, misses) = Overlapped(r => r.Label == "(VT", (_, e) => e.Kind is EpisodeKinds.VeRun or EpisodeKinds.BroadTachycardia);
