@@ -151,6 +151,15 @@ internal static class TachycardiaClassifier
 
             if (a.PBeforeShare >= s.PBeforeQrsShare)
             {
+                // A P wave like the sinus P, but a start on a premature atrial beat and most beats premature atrial
+                // ones: a focal atrial tachycardia whose focus lies near the sinus node (a sinus tachycardia rises
+                // gradually, it does not start on a PAC).
+                if (f.Onset is { Type: "abrupt", Trigger: "premature-atrial" } && f.SShare >= 0.5)
+                {
+                    e.Add("abrupt start on a premature atrial beat; beats premature atrial");
+                    return (EpisodeKinds.AtrialTachycardia, 0.5);
+                }
+
                 if (!double.IsNaN(a.SinusPCorrelation))
                 {
                     return a.SinusPCorrelation >= s.SinusPCorrelation
