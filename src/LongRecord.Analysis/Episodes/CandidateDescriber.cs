@@ -142,6 +142,16 @@ internal static class CandidateDescriber
             return 0;
         }
 
+        // Before an irregular rhythm (AF) two short intervals often add up to some earlier interval by chance: a split
+        // is recognised only against a steady rhythm (the eight RR before within ± 15 % of their median; our choice).
+        for (var i = Math.Max(1, first - 8); i < first; i++)
+        {
+            if (t.HasRr(i) && Math.Abs(t.RrS[i] - reference) > 0.15 * reference)
+            {
+                return 0;
+            }
+        }
+
         var fastRr = 60.0 / s.TachycardiaRateBpm;
         int fast = 0, split = 0;
         for (var i = first; i <= last; i++)

@@ -50,7 +50,7 @@ public sealed class MitdbEpisodeTests(ITestOutputHelper output)
         Assert.True(tp >= 0.80 * n, line);
     }
 
-    [Fact(Skip = "not reached: MITDB (VT overlapped by ve-run or broad-tachycardia 45.9 % (28/61) < 90 %: VT inside AF (203) and beside bigeminy (200, 223) where the beats stage does not label three V in a row")]
+    [Fact(Skip = "not reached: MITDB (VT overlapped by ve-run or broad-tachycardia 57.4 % (35/61) < 90 %: beside bigeminy (200, 223) and inside AF (203) the beats stage labels fewer than three V in a row; slow-measured runs (205, 207, 214) read as idioventricular-rhythm")]
     public void Vt_OverlappedByVeRunOrBroadTachycardia_AtLeast90()
     {
         var (found, total, misses) = Overlapped(r => r.Label == "(VT", (_, e) => e.Kind is EpisodeKinds.VeRun or EpisodeKinds.BroadTachycardia);
