@@ -1,4 +1,5 @@
 using LongRecord.Analysis.Beats;
+using LongRecord.Analysis.Episodes;
 using LongRecord.Analysis.Quality;
 using LongRecord.Analysis.Rhythm;
 using LongRecord.Analysis.Settings;
@@ -16,4 +17,8 @@ public sealed record RecordingAnalysis(
     double ReferenceRateHz,
     double DurationS,
     IReadOnlyList<string> LeadLabels,
-    string BeatSource);
+    string BeatSource)
+{
+    /// <summary>The episode stage's result: tachycardias, runs, bigeminy, pauses, urgent findings and the symptom events.</summary>
+    public EpisodeResult Episodes { get; init; } = EpisodeResult.Empty;
+}

@@ -1,4 +1,5 @@
 using LongRecord.Analysis.Beats;
+using LongRecord.Analysis.Episodes;
 using LongRecord.Analysis.Quality;
 using LongRecord.Analysis.Rhythm;
 using LongRecord.Analysis.Settings;
@@ -26,10 +27,10 @@ public static class RecordingSummariser
         BeatAnnotations.Write(folder.File($"{input.Name}.{BeatAnnotations.Annotator}"), a.Beats);
         QualityCsv.Write(folder.File("quality.csv"), a.Quality);
         CsvTable.Write(folder.File("hourly.csv"), RhythmRows.TrendColumns, RhythmRows.Trend(a.Rhythm));
-        CsvTable.Write(folder.File("episodes.csv"), RhythmRows.EpisodeColumns, RhythmRows.Episodes(a.Rhythm));
+        CsvTable.Write(folder.File("episodes.csv"), EpisodeRows.Columns, EpisodeRows.Rows(a.Episodes));
         var description = new RecordingDescription(input.Name, a.Info.FormatDetail, a.Info.StartDateTime, a.DurationS, a.ReferenceRateHz,
             a.LeadLabels, a.BeatSource, a.Info.HasSignal);
-        SummaryJson.Write(folder.File("summary.json"), description, a.Rhythm, a.Settings);
+        SummaryJson.Write(folder.File("summary.json"), description, a.Rhythm, a.Settings, a.Episodes);
         Report.ReportOutputs.Write(folder, input, a, options.Report);
         observer?.Mark("report");
         observer?.Committing(folder.WorkPath);
@@ -41,7 +42,7 @@ public static class RecordingSummariser
         };
     }
 
-    /// <summary>Reads and analyses one recording (beats, quality, rhythm) without writing anything.</summary>
+    /// <summary>Reads and analyses one recording (beats, quality, rhythm, episodes) without writing anything.</summary>
     public static RecordingAnalysis Analyse(string path, SummaryOptions? options = null, CancellationToken cancellation = default, Batch.SummaryObserver? observer = null)
     {
         options ??= new SummaryOptions();
@@ -50,19 +51,40 @@ public static class RecordingSummariser
         var beats = info.HasSignal ? FromSignal(reader, options, cancellation) : FromAnnotationsOnly(reader, options);
         observer?.MarkBeats(beats.Timings);
         var settings = options.Settings ?? AnalysisSettings.Default;
-        var rhythm = RhythmAnalyser.Analyse(RhythmInputOf(beats, info), settings);
+        var (rhythm, episodes) = RhythmAndEpisodes(reader, beats.Beats, beats.Quality, beats.ReferenceRateHz, beats.DurationS, settings, options.Diary, observer);
+        return new RecordingAnalysis(info, beats.Beats, beats.Quality, rhythm, settings, beats.ReferenceRateHz, beats.DurationS, beats.LeadLabels, beats.BeatSource)
+        {
+            Episodes = episodes,
+        };
+    }
+
+    /// <summary>
+    /// The stages after the beats: rhythm, then episodes (which read the signal of <paramref name="reader"/>, when it has
+    /// one, for their candidates only). Beats and quality stretches as the beats stage gave them.
+    /// </summary>
+    public static (RhythmResult Rhythm, EpisodeResult Episodes) RhythmAndEpisodes(IRecordingReader reader, IReadOnlyList<Beat> beats,
+        IReadOnlyList<QualityStretch> quality, double referenceRateHz, double durationS, AnalysisSettings settings, string? diary = null,
+        Batch.SummaryObserver? observer = null)
+    {
+        var info = reader.Info;
+        var rhythmInput = RhythmInputOf(beats, quality, referenceRateHz, durationS, info);
+        var rhythm = RhythmAnalyser.Analyse(rhythmInput, settings);
         observer?.Mark("rhythm");
-        return new RecordingAnalysis(info, beats.Beats, beats.Quality, rhythm, settings, beats.ReferenceRateHz, beats.DurationS, beats.LeadLabels, beats.BeatSource);
+        var episodes = EpisodeStage.Run(reader, info.HasSignal ? EcgChannelSelector.Select(info) : null, beats, rhythmInput.Stretches, rhythm, settings,
+            referenceRateHz, durationS, diary);
+        observer?.Mark("episodes");
+        return (rhythm, episodes);
     }
 
     /// <summary>The rhythm stage's view of the beats stage's result: beats, quality stretches and the time base.</summary>
-    private static RhythmInput RhythmInputOf(BeatsResult analysis, RecordingInfo info) => new()
+    private static RhythmInput RhythmInputOf(IReadOnlyList<Beat> beats, IReadOnlyList<QualityStretch> quality, double referenceRateHz, double durationS,
+        RecordingInfo info) => new()
     {
-        Beats = analysis.Beats.ToArray(),
-        ReferenceRateHz = analysis.ReferenceRateHz,
+        Beats = beats as Beat[] ?? beats.ToArray(),
+        ReferenceRateHz = referenceRateHz,
         StartDateTime = info.StartDateTime,
-        DurationS = analysis.DurationS,
-        Stretches = analysis.Quality.Select(q => new SignalStretch(q.StartS, q.EndS, q.Analysable, q.Analysable ? "" : q.Reason.Code())).ToArray(),
+        DurationS = durationS,
+        Stretches = quality.Select(q => new SignalStretch(q.StartS, q.EndS, q.Analysable, q.Analysable ? "" : q.Reason.Code())).ToArray(),
     };
 
     private static BeatsResult FromSignal(IRecordingReader reader, SummaryOptions options, CancellationToken cancellation)

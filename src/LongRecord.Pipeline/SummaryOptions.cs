@@ -12,6 +12,12 @@ public sealed record SummaryOptions
     /// </summary>
     public string? Beats { get; init; }
 
+    /// <summary>
+    /// A patient diary (CSV <c>time,text</c>) to read instead of <c>&lt;recording name&gt;.diary.csv</c> beside the
+    /// recording (from <c>--diary PATH</c>); null looks beside the recording.
+    /// </summary>
+    public string? Diary { get; init; }
+
     /// <summary>Every analysis threshold (from <c>--settings PATH</c>); null uses the documented defaults.</summary>
     public LongRecord.Analysis.Settings.AnalysisSettings? Settings { get; init; }
 

@@ -10,6 +10,7 @@ namespace LongRecord.Benchmarks;
 /// <c>-- --short</c> prints quick figures (used by CI: figures only, never a gate);
 /// <c>-- --memory</c> reads a 72 h recording and prints the peak working set;
 /// <c>-- --batch</c> prints the batch issue's figures (<c>--single</c>: the 72 h recording only).
+/// <c>-- --episodes</c> times beats, rhythm and episodes of the 24 h demo day.
 /// </summary>
 public static class Program
 {
@@ -24,6 +25,12 @@ public static class Program
         if (args.Contains("--batch"))
         {
             Batch.BatchBenchmarks.Run(skipFolder: args.Contains("--single"));
+            return 0;
+        }
+
+        if (args.Contains("--episodes"))
+        {
+            EpisodeBenchmarks.Short();
             return 0;
         }
 

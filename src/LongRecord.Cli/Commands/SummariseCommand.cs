@@ -21,6 +21,7 @@ public static class SummariseCommand
         var output = new Option<DirectoryInfo>("--out", "-o") { Description = "Output folder: one sub-folder per recording", Required = true };
         var beats = new Option<string?>("--beats") { Description = "Take beats from an annotation file instead of detecting them: an annotator beside each record's header (qrs, atr, ecg) or a file (WFDB annotations, or a CSV of R times with a time_s or sample column)" };
         var settings = new Option<FileInfo?>("--settings") { Description = "JSON file of analysis thresholds (tachycardia rate, pause lengths, minimum AF episode, windows…); every problem in it is listed before any recording is read. Default: the documented values" };
+        var diary = new Option<FileInfo?>("--diary") { Description = "Patient diary (CSV with columns time,text; time in seconds from the start or as a local date-time) instead of <recording name>.diary.csv beside each recording: the rhythm and rate at each entry are reported" };
         var block = new Option<int?>("--block-seconds") { Description = "Seconds of signal read and analysed at a time (results do not depend on it; default about 4 min at 250 Hz)", Hidden = true };
         var jobs = new Option<int>("--jobs", "-j") { Description = "Recordings analysed at once (default: the number of cores)", DefaultValueFactory = _ => Environment.ProcessorCount };
         var shard = new Option<string?>("--shard") { Description = "I/N: take only the I-th of N parts of the whole sorted input list (output folder names as in a run without it), for a scheduler's array job" };
@@ -30,7 +31,7 @@ public static class SummariseCommand
         var timings = new Option<bool>("--timings") { Description = "Print the time spent in each stage, per recording and for the batch" };
         var cmd = new Command("summarise", "Analyse recordings as a batch: beats and rhythm per recording and an index of them all; resumable, and one recording's failure stops no other")
         {
-            inputs, output, beats, settings, block, jobs, shard, force, quiet, verbose, timings,
+            inputs, output, beats, settings, diary, block, jobs, shard, force, quiet, verbose, timings,
         };
         var report = new ReportCommandOptions();
         report.AddTo(cmd);
@@ -55,7 +56,7 @@ public static class SummariseCommand
         });
         cmd.SetAction((parse, cancellation) => Task.FromResult(CommandRunner.Run(stderr, () =>
         {
-            var options = new SummaryOptions { Beats = parse.GetValue(beats), Settings = LoadSettings(parse.GetValue(settings)), Report = report.Resolve(parse) };
+            var options = new SummaryOptions { Beats = parse.GetValue(beats), Settings = LoadSettings(parse.GetValue(settings)), Report = report.Resolve(parse), Diary = DiaryPath(parse.GetValue(diary)) };
             if (parse.GetValue(block) is int s)
             {
                 options = options with { BlockSamples = Math.Max(1, s * 250) };
@@ -91,6 +92,10 @@ public static class SummariseCommand
             throw new UserInputException(e.Message);
         }
     }
+
+    /// <summary>The diary file named on the command line; a missing file is a user error.</summary>
+    public static string? DiaryPath(FileInfo? file) =>
+        file is null ? null : file.Exists ? file.FullName : throw new UserInputException($"{file}: diary file not found");
 
     /// <summary>Finds the recordings and runs them as a batch (<see cref="BatchRunner"/>) with the display that suits the output.</summary>
     public static ExitCode Run(IReadOnlyList<string> inputs, string outputRoot, SummaryOptions options, BatchOptions batch, ProgressSettings progress, TextWriter stdout, TextWriter stderr, CancellationToken cancellation = default)

@@ -15,7 +15,7 @@ public sealed record IndexFigures(double? DurationS, double? AnalysablePercent, 
     /// The kinds given a column of their own, in this order; any other kind counts under <c>other</c>. The one place to
     /// change when the episodes stage brings its kinds.
     /// </summary>
-    public static readonly string[] EpisodeKinds = [RhythmEpisode.AfKind, RhythmEpisode.AfBriefKind, RhythmEpisode.PauseKind, RhythmEpisode.BradycardiaKind];
+    public static readonly string[] EpisodeKinds = [.. LongRecord.Analysis.Episodes.EpisodeKinds.All];
 
     public const string OtherKind = "other";
 

@@ -24,7 +24,9 @@ public static class IndexHtml
 
     public static string Render(IReadOnlyList<BatchIndexRow> rows, ShardSpec shard)
     {
-        var kinds = IndexFigures.EpisodeKinds.Append(IndexFigures.OtherKind).ToArray();
+        // Columns only for the kinds some recording of this batch has (index.csv keeps every kind).
+        var kinds = IndexFigures.EpisodeKinds.Append(IndexFigures.OtherKind)
+            .Where(k => rows.Any(r => r.Figures.EpisodesByKind.GetValueOrDefault(k) > 0)).ToArray();
         var html = new StringBuilder();
         html.Append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n<title>LongRecord batch index</title>\n<style>\n")
             .Append(Style).Append("</style>\n</head>\n<body>\n");

@@ -1,6 +1,7 @@
 using System.Reflection;
 using System.Text;
 using System.Text.Json;
+using LongRecord.Analysis.Episodes;
 using LongRecord.Analysis.Rhythm;
 using LongRecord.Analysis.Settings;
 
@@ -19,7 +20,7 @@ public static class SummaryJson
     public static string ToolVersion { get; } =
         typeof(SummaryJson).Assembly.GetCustomAttribute<AssemblyInformationalVersionAttribute>()?.InformationalVersion.Split('+')[0] ?? "0";
 
-    public static void Write(string path, RecordingDescription recording, RhythmResult rhythm, AnalysisSettings settings)
+    public static void Write(string path, RecordingDescription recording, RhythmResult rhythm, AnalysisSettings settings, EpisodeResult? episodes = null)
     {
         using var stream = File.Create(path);
         using var w = new Utf8JsonWriter(stream, new JsonWriterOptions { Indented = true });
@@ -27,6 +28,11 @@ public static class SummaryJson
         foreach (var (key, value) in RhythmRows.Summary(rhythm))
         {
             WriteValue(w, key, value);
+        }
+
+        if (episodes is not null)
+        {
+            WriteEpisodes(w, episodes);
         }
 
         w.WriteString("tool", "LongRecord");
@@ -57,6 +63,53 @@ public static class SummaryJson
         w.WritePropertyName("settings");
         settings.WriteTo(w);
         w.WriteEndObject();
+    }
+
+    // Counts by kind (all and flagged: at least one review reason) and the symptom-event table.
+    private static void WriteEpisodes(Utf8JsonWriter w, EpisodeResult episodes)
+    {
+        foreach (var (key, value) in EpisodeRows.Summary(episodes))
+        {
+            WriteValue(w, key, value);
+        }
+
+        w.WriteStartObject("episodes_by_kind");
+        foreach (var (kind, n) in episodes.CountsByKind())
+        {
+            w.WriteNumber(kind, n);
+        }
+
+        w.WriteEndObject();
+        w.WriteStartObject("episodes_flagged_by_kind");
+        foreach (var (kind, n) in episodes.FlaggedByKind())
+        {
+            w.WriteNumber(kind, n);
+        }
+
+        w.WriteEndObject();
+        w.WriteStartArray("symptom_events");
+        foreach (var e in episodes.SymptomEvents)
+        {
+            w.WriteStartObject();
+            w.WriteNumber("time_s", Math.Round(e.TimeS, 3));
+            w.WriteString("clock", e.ClockTime?.ToString("yyyy-MM-ddTHH:mm:ss", System.Globalization.CultureInfo.InvariantCulture));
+            w.WriteString("text", e.Text);
+            w.WriteString("source", e.Source);
+            w.WriteString("rhythm", e.Rhythm);
+            WriteValue(w, "mean_bpm", double.IsFinite(e.MeanBpm) ? Math.Round(e.MeanBpm, 1) : null);
+            WriteValue(w, "min_bpm", double.IsFinite(e.MinBpm) ? Math.Round(e.MinBpm, 1) : null);
+            WriteValue(w, "max_bpm", double.IsFinite(e.MaxBpm) ? Math.Round(e.MaxBpm, 1) : null);
+            w.WriteStartArray("episode_ids");
+            foreach (var id in e.EpisodeIds)
+            {
+                w.WriteNumberValue(id);
+            }
+
+            w.WriteEndArray();
+            w.WriteEndObject();
+        }
+
+        w.WriteEndArray();
     }
 
     private static void WriteValue(Utf8JsonWriter w, string key, object? value)

@@ -1,3 +1,4 @@
+using LongRecord.Analysis.Episodes;
 using System.Globalization;
 using LongRecord.Analysis.Rhythm;
 using LongRecord.Pipeline.Outputs;
@@ -13,13 +14,10 @@ namespace LongRecord.Pipeline.Report;
 /// </summary>
 public static class ReportModelMapper
 {
-    /// <summary>Beats either side of a patient event that give the rate shown beside it, s (common practice, no source).</summary>
-    public const double EventRateHalfWindowS = 5;
-
     public static ReportModel Build(RecordingAnalysis a, string recordingName, ReportPatient patient)
     {
         var r = a.Rhythm;
-        var episodes = RhythmEpisodeRows.Map(r, a.Beats, a.ReferenceRateHz, a.Settings);
+        var episodes = EpisodeReportRows.Map(a.Episodes);
         return new ReportModel
         {
             Patient = patient,
@@ -27,8 +25,8 @@ public static class ReportModelMapper
             Figures = Figures(r),
             Hours = r.Trend.Select(Hour).ToArray(),
             Episodes = episodes,
-            EpisodeCounts = r.Episodes.GroupBy(e => e.Kind).Select(g => new KeyValuePair<string, int>(g.Key, g.Count())).ToArray(),
-            Symptoms = a.Info.Events.Where(e => !string.IsNullOrWhiteSpace(e.Text)).Select(e => Symptom(e.OnsetS, e.Text.Trim(), r, a)).ToArray(),
+            EpisodeCounts = a.Episodes.CountsByKind(),
+            Symptoms = a.Episodes.SymptomEvents.Select(Symptom).ToArray(),
             Distributions = DistributionsBuilder.Build(a.Beats, a.ReferenceRateHz, a.DurationS, a.Settings.Rhythm.MaxBeatGapS),
             Thresholds = new ReportThresholds(a.Settings.Pauses.ReportS, a.Settings.Pauses.HighlightS, a.Settings.Bradycardia.RateBpm, a.Settings.Bradycardia.MinDurationS, a.Settings.Af.MinEpisodeS),
             ToolVersion = SummaryJson.ToolVersion,
@@ -95,20 +93,15 @@ public static class ReportModelMapper
         Pauses = t.Pauses,
     };
 
-    private static ReportSymptom Symptom(double timeS, string text, RhythmResult r, RecordingAnalysis a)
+    // The episodes stage's symptom table, in words: the kinds found around the event and the mean rate there.
+    private static ReportSymptom Symptom(SymptomEvent e)
     {
-        var covering = r.Episodes.Where(e => e.StartS <= timeS && timeS <= e.EndS).Select(e => e.Kind).Distinct().ToArray();
-        var rhythm = covering.Length > 0 ? string.Join(", ", covering.Select(Reporting.Pages.ReportText.Kind)) : "no episode found";
-        return new ReportSymptom(timeS, text, rhythm, LocalRateBpm(a, timeS));
-    }
-
-    // Mean rate of the beats within the half-window either side: 60 × intervals ÷ their time.
-    private static double LocalRateBpm(RecordingAnalysis a, double timeS)
-    {
-        var from = (timeS - EventRateHalfWindowS) * a.ReferenceRateHz;
-        var to = (timeS + EventRateHalfWindowS) * a.ReferenceRateHz;
-        var i = BeatSearch.FirstAtOrAfter(a.Beats, from);
-        var j = BeatSearch.FirstAtOrAfter(a.Beats, Math.Floor(to) + 1) - 1;
-        return j > i ? 60.0 * (j - i) / ((a.Beats[j].Sample - a.Beats[i].Sample) / a.ReferenceRateHz) : double.NaN;
+        var rhythm = e.Rhythm switch
+        {
+            "no-episode" => "no episode found",
+            "no-beats" => "no analysable beats",
+            _ => string.Join(", ", e.Rhythm.Split('+').Select(Reporting.Pages.ReportText.Kind)),
+        };
+        return new ReportSymptom(e.TimeS, e.Text, rhythm, e.MeanBpm);
     }
 }

@@ -1,0 +1,53 @@
+using LongRecord.Analysis.Beats;
+
+namespace LongRecord.Analysis.Episodes;
+
+/// <summary>
+/// The rhythm stage finds AF from the RR intervals, so its episodes can start a few beats late and end a few beats
+/// late (its windows need irregular intervals on both sides). With P waves judged on the signal, an AF episode's ends
+/// are moved to the P waves: up to four beats with a P wave at either end are left out, and up to four beats without
+/// one just before it are taken in; a last interval over 1.5 times the episode's median RR that leads into sinus rhythm
+/// (the pause as AF stops) is left out. Nothing moves when the beats carry no P-wave judgement.
+/// </summary>
+internal static class AfExtent
+{
+    private const int MaxBeats = 4;
+    private const double LongFactor = 1.5;
+
+    public static (int First, int Last) Refine(BeatTrack t, int first, int last)
+    {
+        var f = first;
+        var l = last;
+        for (var k = 0; k < MaxBeats && f < l - 2 && t[f].PWave == 1; k++)
+        {
+            f++;
+        }
+
+        if (f == first)
+        {
+            for (var k = 0; k < MaxBeats && f > 0 && t.HasRr(f) && t[f - 1].PWave == 0 && t[f - 1].Class != BeatClass.V; k++)
+            {
+                f--;
+            }
+        }
+
+        for (var k = 0; k < MaxBeats && l > f + 2 && t[l].PWave == 1; k++)
+        {
+            l--;
+        }
+
+        // The long interval into the first beat after AF (the pause as sinus rhythm resumes) ends the episode one beat
+        // earlier when that beat's P wave was missed.
+        if (l > f + 4 && l != last && t[l].PWave == 0 && t.HasRr(l) && t.RrS[l] > LongFactor * OnsetOffset.MedianRr(t, f + 1, l))
+        {
+            l--;
+        }
+        else if (l == last && l > f + 4 && t[l].PWave == 0 && t.HasRr(l) && t.RrS[l] > LongFactor * OnsetOffset.MedianRr(t, f + 1, l)
+            && l + 1 < t.Count && t[l + 1].PWave == 1)
+        {
+            l--;
+        }
+
+        return (f, l);
+    }
+}

@@ -1,0 +1,182 @@
+using LongRecord.Analysis.Beats;
+using LongRecord.Analysis.Rhythm;
+using LongRecord.Analysis.Settings;
+
+namespace LongRecord.Analysis.Episodes;
+
+/// <summary>
+/// Candidate episodes from the beats: runs of beats above the tachycardia rate (at least the minimum run of fast
+/// beats, merged across interruptions of a few slower beats, the whole at a mean rate above the tachycardia rate),
+/// runs of consecutive S or V beats (EC57 run classes: couplet counted, runs of three and more kept) and the rhythm
+/// stage's AF episodes; overlapping candidates become one.
+/// </summary>
+internal static class CandidateFinder
+{
+    public static List<Candidate> Find(BeatTrack track, RhythmResult rhythm, EpisodeSettings s, out int sveCouplets, out int veCouplets)
+    {
+        var list = new List<Candidate>();
+        FastRuns(track, s, list);
+        ClassRuns(track, s, list, out sveCouplets, out veCouplets);
+        foreach (var e in rhythm.Episodes)
+        {
+            if (e.Kind is RhythmEpisode.AfKind or RhythmEpisode.AfBriefKind)
+            {
+                var first = track.FirstAtOrAfter(e.StartS);
+                var last = track.LastAtOrBefore(e.EndS);
+                if (last > first)
+                {
+                    var c = new Candidate(first, last, CandidateSource.RhythmAf);
+                    c.AfPieces.Add(e);
+                    list.Add(c);
+                }
+            }
+        }
+
+        // A run of ectopic beats inside AF or inside a longer run of fast beats (a run of PACs during a sinus
+        // tachycardia, a ve-run during AF) is an episode of its own, not part of what surrounds it.
+        // In AF, irregular conducted beats are not S beats: an S run there stays part of the AF.
+        var inside = list.Where(c => c.Source is CandidateSource.VeRun or CandidateSource.SveRun && list.Any(a => Surrounds(a, c))
+            && !(c.Source == CandidateSource.SveRun && list.Any(a => a.Source == CandidateSource.RhythmAf && a.Overlaps(c)))).ToList();
+        list.RemoveAll(inside.Contains);
+        var merged = Merge(list);
+        merged.AddRange(inside);
+        merged.Sort((a, b) => a.First.CompareTo(b.First));
+        return merged;
+    }
+
+    // AF around a ventricular run, or a run of fast beats more than twice as long as an ectopic run.
+    private static bool Surrounds(Candidate a, Candidate run) =>
+        a.Overlaps(run) && (run.Source == CandidateSource.VeRun
+            ? a.Source == CandidateSource.RhythmAf || (a.Source == CandidateSource.Fast && a.BeatCount > 2 * run.BeatCount)
+            : a.Source == CandidateSource.Fast && a.BeatCount > 2 * run.BeatCount);
+
+    /// <summary>Merges overlapping candidates (transitively).</summary>
+    public static List<Candidate> Merge(List<Candidate> list)
+    {
+        list.Sort((a, b) => a.First.CompareTo(b.First));
+        var merged = new List<Candidate>();
+        foreach (var c in list)
+        {
+            if (merged.Count > 0 && merged[^1].Overlaps(c))
+            {
+                merged[^1].Absorb(c);
+            }
+            else
+            {
+                merged.Add(c);
+            }
+        }
+
+        return merged;
+    }
+
+    // Runs of at least the minimum run of consecutive fast intervals, merged across interruptions of a few slower
+    // beats. Consecutive, so that the short coupling intervals of bigeminy (fast, slow, fast, slow) make no run.
+    private static void FastRuns(BeatTrack track, EpisodeSettings s, List<Candidate> list)
+    {
+        var fastRrS = 60.0 / s.TachycardiaRateBpm;
+        int first = -1, last = -1, runStart = -1;
+        for (var i = 1; i <= track.Count; i++)
+        {
+            var analysable = i < track.Count && track.HasRr(i);
+            var fast = analysable && track.RrS[i] < fastRrS;
+            if (fast)
+            {
+                runStart = runStart < 0 ? i : runStart;
+                continue;
+            }
+
+            // A run of consecutive fast intervals ended at beat i − 1.
+            if (runStart >= 0 && i - runStart >= s.RunMinimumBeats)
+            {
+                if (first >= 0 && runStart - last - 1 <= s.MergeGapBeats && Analysable(track, last, runStart))
+                {
+                    last = i - 1;
+                }
+                else
+                {
+                    Close(track, s, list, first, last);
+                    first = runStart;
+                    last = i - 1;
+                }
+            }
+
+            runStart = -1;
+            if (!analysable && first >= 0)
+            {
+                Close(track, s, list, first, last);
+                first = -1;
+            }
+        }
+
+        Close(track, s, list, first, last);
+    }
+
+    private static bool Analysable(BeatTrack track, int from, int to)
+    {
+        for (var i = from + 1; i <= to; i++)
+        {
+            if (!track.HasRr(i))
+            {
+                return false;
+            }
+        }
+
+        return true;
+    }
+
+    private static void Close(BeatTrack track, EpisodeSettings s, List<Candidate> list, int first, int last)
+    {
+        if (first < 0)
+        {
+            return;
+        }
+
+        // Mean over the run's own intervals, the one ending at its first beat included.
+        double sum = 0;
+        for (var i = first; i <= last; i++)
+        {
+            sum += track.RrS[i];
+        }
+
+        if (60.0 * (last - first + 1) / sum >= s.TachycardiaRateBpm)
+        {
+            list.Add(new Candidate(first, last, CandidateSource.Fast));
+        }
+    }
+
+    private static void ClassRuns(BeatTrack track, EpisodeSettings s, List<Candidate> list, out int sveCouplets, out int veCouplets)
+    {
+        sveCouplets = 0;
+        veCouplets = 0;
+        var i = 0;
+        while (i < track.Count)
+        {
+            var c = track[i].Class;
+            if (c is not (BeatClass.S or BeatClass.V))
+            {
+                i++;
+                continue;
+            }
+
+            var j = i;
+            while (j + 1 < track.Count && track[j + 1].Class == c && track.HasRr(j + 1))
+            {
+                j++;
+            }
+
+            var n = j - i + 1;
+            if (n == 2)
+            {
+                sveCouplets += c == BeatClass.S ? 1 : 0;
+                veCouplets += c == BeatClass.V ? 1 : 0;
+            }
+            else if (n >= s.RunMinimumBeats)
+            {
+                list.Add(new Candidate(i, j, c == BeatClass.S ? CandidateSource.SveRun : CandidateSource.VeRun));
+            }
+
+            i = j + 1;
+        }
+    }
+}

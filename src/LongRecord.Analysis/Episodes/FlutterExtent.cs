@@ -1,0 +1,110 @@
+using LongRecord.Analysis.Settings;
+
+namespace LongRecord.Analysis.Episodes;
+
+/// <summary>
+/// Flutter with variable conduction keeps its flutter cycle while the ventricular rate falls below the tachycardia rate
+/// (3:1, 4:1 stretches) and the rhythm stage may see only pieces of it. A flutter episode is therefore extended beat by
+/// beat, both ways, while the RR stays a whole number (≥ 2) of flutter cycles (one interval off is bridged when the
+/// next three are on), and flutter episodes that then meet or
+/// overlap become one; other candidates wholly inside it are absorbed.
+/// </summary>
+internal static class FlutterExtent
+{
+    private const double Tolerance = 0.12;
+
+    public static List<Draft> Extend(List<Draft> drafts, BeatTrack t, AnalysisSettings settings)
+    {
+        var result = new List<Draft>();
+        foreach (var d in drafts.OrderBy(d => d.First))
+        {
+            if (d.RawKind != EpisodeKinds.Flutter || d.Facts is null || double.IsNaN(d.Episode.Atrial.AtrialRateBpm))
+            {
+                result.Add(d);
+                continue;
+            }
+
+            var cycle = 60 / d.Episode.Atrial.AtrialRateBpm;
+            var first = d.First;
+            var last = d.Last;
+            // One interval off the multiples (a beat placed a little late in noise) does not end it when the next
+            // three are on them again.
+            while (first > 0 && (Multiple(t, first, cycle) || (first > 3 && Multiple(t, first - 1, cycle) && Multiple(t, first - 2, cycle) && Multiple(t, first - 3, cycle))))
+            {
+                first--;
+            }
+
+            while (last + 1 < t.Count && (Multiple(t, last + 1, cycle)
+                || (last + 4 < t.Count && Multiple(t, last + 2, cycle) && Multiple(t, last + 3, cycle) && Multiple(t, last + 4, cycle))))
+            {
+                last++;
+            }
+
+            result.Add(d with { First = first, Last = last });
+        }
+
+        // Merge flutter drafts that meet; drop any other draft wholly inside a flutter one.
+        result.Sort((a, b) => a.First.CompareTo(b.First));
+        var merged = new List<Draft>();
+        foreach (var d in result)
+        {
+            if (merged.Count > 0)
+            {
+                var p = merged[^1];
+                var pFlutter = p.RawKind == EpisodeKinds.Flutter;
+                var dFlutter = d.RawKind == EpisodeKinds.Flutter;
+                if (pFlutter && dFlutter && d.First <= p.Last + 1)
+                {
+                    merged[^1] = p with { Last = Math.Max(p.Last, d.Last) };
+                    continue;
+                }
+
+                if (pFlutter && d.Last <= p.Last)
+                {
+                    continue;
+                }
+
+                if (dFlutter && p.First >= d.First && p.Last <= d.Last)
+                {
+                    merged[^1] = d;
+                    continue;
+                }
+            }
+
+            merged.Add(d);
+        }
+
+        // Rebuild the episodes whose extent changed.
+        for (var i = 0; i < merged.Count; i++)
+        {
+            var d = merged[i];
+            if (d.RawKind == EpisodeKinds.Flutter && d.Facts is not null && (d.Episode.StartS != t.TimeS(d.First) || d.Episode.EndS != t.TimeS(d.Last)))
+            {
+                var e = d.Episode;
+                var facts = d.Facts with
+                {
+                    MeanBpm = t.MeanBpm(Math.Max(0, d.First - 1), d.Last),
+                    Onset = OnsetOffset.Onset(t, d.First, d.Last, settings.Episodes),
+                    Offset = OnsetOffset.Offset(t, d.First, d.Last, settings.Episodes),
+                    Regularity = RrRegularity.Of(t, d.First, d.Last),
+                    DurationS = t.TimeS(d.Last) - t.TimeS(d.First),
+                };
+                merged[i] = d with { Facts = facts, Episode = CandidateDescriber.Build(t, d.First, d.Last, d.RawKind, e.Width, e.QrsMs, e.Evidence, e.Confidence, facts, settings) };
+            }
+        }
+
+        return merged;
+    }
+
+    // The RR ending at beat i is a whole number (≥ 2) of flutter cycles.
+    private static bool Multiple(BeatTrack t, int i, double cycle)
+    {
+        if (!t.HasRr(i))
+        {
+            return false;
+        }
+
+        var m = Math.Round(t.RrS[i] / cycle);
+        return m >= 2 && Math.Abs(t.RrS[i] - m * cycle) <= Tolerance * cycle;
+    }
+}

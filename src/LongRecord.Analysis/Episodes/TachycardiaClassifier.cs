@@ -1,0 +1,232 @@
+using System.Globalization;
+using LongRecord.Analysis.Settings;
+
+namespace LongRecord.Analysis.Episodes;
+
+/// <summary>
+/// Names a candidate by the clinical decision logic for tachycardias (facts of the trade, common practice): first the
+/// QRS width (broad may be ventricular and is never called supraventricular without evidence; unknown width leaves
+/// the tachycardia unclassified), then regularity, then the atrial activity. Narrow and regular: flutter waves locked
+/// at twice the ventricular rate → 2:1 flutter; a P wave before every QRS → sinus tachycardia when it has the sinus
+/// shape, focal atrial tachycardia when it does not; no P wave before the QRS → re-entrant SVT. Narrow and irregular:
+/// RR clustered at multiples of a flutter cycle → flutter with variable conduction; P waves of three or more shapes →
+/// MAT; sinus P waves with frequent premature beats → sinus rhythm with PACs; AF only where the rhythm stage found it.
+/// Every answer carries its evidence and a confidence; the short-run rule is applied afterwards (<see cref="EpisodeKindRule"/>).
+/// </summary>
+internal static class TachycardiaClassifier
+{
+    public static (string? Kind, QrsWidth Width, double QrsMs, string Evidence, double Confidence) Classify(ClassifierFacts f, EpisodeSettings s)
+    {
+        var e = new List<string>();
+        var (width, qrsMs) = Width(f, s);
+        e.Add(width == QrsWidth.Unknown ? "width unknown" : Invariant($"QRS {qrsMs:0} ms {(width == QrsWidth.Broad ? "broad" : "narrow")} (beats {f.BeatQrsMs:0}, mean complex {f.MeanComplexQrsMs:0})"));
+        e.Add(Invariant($"rate {f.MeanBpm:0} bpm (median {f.MedianBpm:0})"));
+        var irregular = f.Regularity.SuccessiveChange > s.IrregularRrChange;
+        e.Add(Invariant($"{(irregular ? "irregular" : "regular")} (RR change {f.Regularity.SuccessiveChange:0.000}, CV {f.Regularity.Cv:0.000})"));
+        e.Add($"onset {f.Onset.Type}{(f.Onset.Trigger != "none" ? $" after a {f.Onset.Trigger} beat" : "")}");
+        if (!double.IsNaN(f.Atrial.PBeforeShare))
+        {
+            e.Add(Invariant($"P before QRS in {100 * f.Atrial.PBeforeShare:0} %"));
+        }
+
+        if (f.Atrial.PShapes > 0)
+        {
+            e.Add(Invariant($"{f.Atrial.PShapes} P shape(s)"));
+        }
+
+        if (!double.IsNaN(f.Atrial.SinusPCorrelation))
+        {
+            e.Add(Invariant($"P vs sinus P {f.Atrial.SinusPCorrelation:0.00}"));
+        }
+
+        if (!double.IsNaN(f.Atrial.AtrialRateBpm))
+        {
+            e.Add(Invariant($"atrial rate {f.Atrial.AtrialRateBpm:0}/min"));
+        }
+
+        if (!double.IsNaN(f.Atrial.ClusterShare))
+        {
+            e.Add(Invariant($"RR at multiples of the atrial cycle {100 * f.Atrial.ClusterShare:0} % (peak share {100 * f.Atrial.PeakShare:0} %)"));
+        }
+
+        if (f.AfShare > 0)
+        {
+            e.Add(Invariant($"rhythm stage AF over {100 * f.AfShare:0} %"));
+        }
+
+        var (kind, confidence) = Decide(f, s, width, irregular, e);
+        return (kind, width, qrsMs, string.Join("; ", e), Math.Clamp(confidence, 0, 1));
+    }
+
+    // The beats' own widths first; the mean complex's only when the beats carry none.
+    private static (QrsWidth, double) Width(ClassifierFacts f, EpisodeSettings s)
+    {
+        var ms = double.IsNaN(f.BeatQrsMs) ? f.MeanComplexQrsMs : f.BeatQrsMs;
+        return double.IsNaN(ms) ? (QrsWidth.Unknown, double.NaN) : (ms >= s.BroadQrsMs ? QrsWidth.Broad : QrsWidth.Narrow, ms);
+    }
+
+    private static (string?, double) Decide(ClassifierFacts f, EpisodeSettings s, QrsWidth width, bool irregular, List<string> e)
+    {
+        var a = f.Atrial;
+        var fast = f.MeanBpm >= s.TachycardiaRateBpm;
+        var byRhythmStage = f.AfShare >= 0.5;
+
+        // Extra detections in noise: beats of one-off morphologies that split normal intervals. Not an episode. A run
+        // the beats stage labelled ectopic beat by beat (ventricular runs often have shapes of their own) needs the
+        // split intervals too.
+        var labelledRun = (f.Source.HasFlag(CandidateSource.VeRun) && f.VShare >= 0.5) || (f.Source.HasFlag(CandidateSource.SveRun) && f.SShare >= 0.5);
+        var oneOff = labelledRun ? f.OddTemplateShare >= 0.25 && f.SplitShare >= 0.3 : f.OddTemplateShare >= 0.5 || (f.OddTemplateShare >= 0.25 && f.SplitShare >= 0.3);
+        if (!byRhythmStage && oneOff)
+        {
+            e.Add(FormattableString.Invariant($"artefact: {100 * f.OddTemplateShare:0} % one-off shapes, {100 * f.SplitShare:0} % split intervals"));
+            return (null, 0);
+        }
+
+        if (width == QrsWidth.Unknown)
+        {
+            if (byRhythmStage)
+            {
+                return (Af(f, s), 0.6);
+            }
+
+            if (f.Source.HasFlag(CandidateSource.VeRun) && f.VShare >= 0.5)
+            {
+                e.Add("consecutive V beats by label");
+                return (fast ? EpisodeKinds.VeRun : EpisodeKinds.IdioventricularRhythm, 0.6);
+            }
+
+            if (f.Source.HasFlag(CandidateSource.SveRun) && f.SShare >= 0.5)
+            {
+                e.Add("consecutive S beats by label");
+                return (fast ? EpisodeKinds.SveRun : EpisodeKinds.JunctionalRhythm, 0.5);
+            }
+
+            return (EpisodeKinds.UnclassifiedTachycardia, 0.3);
+        }
+
+        // A QRS unlike the recording's conducted beats, with ventricular beats among them, or with no P wave leading
+        // them and few beats the beats stage could call normal or supraventricular, is not called supraventricular
+        // without evidence; beats labelled S or N (a supraventricular shape) are that evidence.
+        var unusual = f.UsualQrsShare < 0.5 && f.SShare < 0.5
+            && (f.VShare >= 0.3 || (a.PBeforeShare <= s.PAbsentShare && f.NShare + f.SShare < 0.5));
+        // AF is the rhythm stage's finding (irregular RR, no consistent P waves) and stays AF whatever the width: broad
+        // complexes in AF (bundle-branch block, aberration — or a ventricular rhythm) are its attribute, and the width
+        // flags the episode urgent in review, so a reviewer sees it first.
+        if (byRhythmStage && width == QrsWidth.Broad)
+        {
+            e.Add("broad QRS during AF: bundle-branch block or aberrant conduction, or ventricular — to be reviewed");
+            return (Af(f, s), 0.5);
+        }
+
+        if (width == QrsWidth.Broad || f.VShare >= 0.5 || unusual)
+        {
+            if (width != QrsWidth.Broad)
+            {
+                e.Add(f.VShare >= 0.5 ? "ventricular beats by morphology" : FormattableString.Invariant($"QRS unlike the usual conducted beats ({100 * f.UsualQrsShare:0} % alike)"));
+            }
+
+            if (fast)
+            {
+                return (EpisodeKinds.BroadTachycardia, width == QrsWidth.Broad && f.VShare >= 0.5 ? 0.9 : 0.7);
+            }
+
+            // A slow ventricular rhythm has broad complexes and no P wave leading them; narrow beats with P waves that
+            // the beats stage called V are no ectopic rhythm.
+            return width == QrsWidth.Broad || a.PBeforeShare < s.PBeforeQrsShare ? (EpisodeKinds.IdioventricularRhythm, 0.7) : (null, 0);
+        }
+
+        if (!fast)
+        {
+            if (a.Finding == "flutter-waves")
+            {
+                return (EpisodeKinds.Flutter, 0.7);
+            }
+
+            if (byRhythmStage)
+            {
+                return (Af(f, s), 0.8);
+            }
+
+            return f.Atrial.PBeforeShare >= s.PBeforeQrsShare ? (EpisodeKinds.EctopicAtrialRhythm, 0.6) : (EpisodeKinds.JunctionalRhythm, 0.6);
+        }
+
+        var rate = f.MedianBpm;
+        if (!irregular)
+        {
+            if (a.Finding == "flutter-waves-locked")
+            {
+                return (EpisodeKinds.Flutter, 0.6 + 0.3 * Math.Clamp((a.LockedWaveIndex - s.LockedWaveIndex) / (1 - s.LockedWaveIndex), 0, 1));
+            }
+
+            if (a.PBeforeShare >= s.PBeforeQrsShare)
+            {
+                // A P wave like the sinus P, but a start on a premature atrial beat and most beats premature atrial
+                // ones: a focal atrial tachycardia whose focus lies near the sinus node (a sinus tachycardia rises
+                // gradually, it does not start on a PAC).
+                if (f.Onset is { Type: "abrupt", Trigger: "premature-atrial" } && f.SShare >= 0.5)
+                {
+                    e.Add("abrupt start on a premature atrial beat; beats premature atrial");
+                    return (EpisodeKinds.AtrialTachycardia, 0.5);
+                }
+
+                if (!double.IsNaN(a.SinusPCorrelation))
+                {
+                    return a.SinusPCorrelation >= s.SinusPCorrelation
+                        ? (EpisodeKinds.SinusTachycardia, f.Onset.Type == "abrupt" ? 0.6 : 0.9)
+                        : (EpisodeKinds.AtrialTachycardia, 0.8);
+                }
+
+                e.Add("no sinus P to compare");
+                return f.Onset.Type == "abrupt" ? (EpisodeKinds.AtrialTachycardia, 0.4) : (EpisodeKinds.SinusTachycardia, 0.5);
+            }
+
+            if (a.PBeforeShare <= s.PAbsentShare || double.IsNaN(a.PBeforeShare))
+            {
+                var c = 0.5 + (f.Onset.Type == "abrupt" ? 0.2 : 0) + (rate is >= 150 and <= 250 ? 0.15 : 0) + (f.Regularity.SuccessiveChange < 0.03 ? 0.1 : 0);
+                return (EpisodeKinds.Svt, c);
+            }
+
+            return f.Onset.Type == "abrupt" ? (EpisodeKinds.Svt, 0.4) : (EpisodeKinds.SinusTachycardia, 0.4);
+        }
+
+        if (a.Finding == "flutter-waves")
+        {
+            return (EpisodeKinds.Flutter, 0.8);
+        }
+
+        if (a.PBeforeShare >= s.MultifocalPShare && a.PShapes >= s.MultifocalPShapes)
+        {
+            return (EpisodeKinds.Mat, 0.7);
+        }
+
+        if (a.PBeforeShare >= s.PBeforeQrsShare && f.PrematureShare >= 0.1 && !(a.SinusPCorrelation < s.SinusPCorrelation))
+        {
+            return (EpisodeKinds.SinusWithPacs, 0.6);
+        }
+
+        if (byRhythmStage)
+        {
+            return (Af(f, s), a.Finding == "fibrillatory-waves" ? 0.9 : 0.7);
+        }
+
+        if (a.PBeforeShare >= s.PBeforeQrsShare)
+        {
+            return (EpisodeKinds.SinusTachycardia, 0.4);
+        }
+
+        // A short narrow run that starts abruptly is a run of supraventricular ectopic beats even when the beats stage
+        // did not label them S (the kind rule: consecutive ectopic beats above the tachycardia rate under 30 s).
+        if (f.DurationS < s.SustainedS && f.Onset.Type == "abrupt")
+        {
+            e.Add("short run with an abrupt onset");
+            return (EpisodeKinds.SveRun, 0.4);
+        }
+
+        return (EpisodeKinds.UnclassifiedTachycardia, 0.3);
+    }
+
+    // AF keeps the rhythm stage's verdict on its length (af from the minimum AF duration, af-brief below).
+    private static string Af(ClassifierFacts f, EpisodeSettings s) => f.RhythmAfLong ? EpisodeKinds.Af : EpisodeKinds.AfBrief;
+
+    private static string Invariant(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
+}

@@ -1,0 +1,49 @@
+using LongRecord.Analysis.Beats;
+using LongRecord.Analysis.Episodes;
+using LongRecord.Analysis.Rhythm;
+
+namespace LongRecord.Analysis.Tests.Episodes;
+
+/// <summary>Hand-made beat sequences from RR intervals, as the episode stage sees them.</summary>
+internal static class EpisodeTrack
+{
+    public const double RateHz = 250;
+
+    /// <summary>Beats at the cumulative sums of <paramref name="rrS"/> (the first at 1 s), class N unless given.</summary>
+    public static BeatTrack FromRr(IReadOnlyList<double> rrS, Func<int, BeatClass>? classOf = null)
+    {
+        var beats = new Beat[rrS.Count + 1];
+        var t = 1.0;
+        for (var i = 0; i < beats.Length; i++)
+        {
+            if (i > 0)
+            {
+                t += rrS[i - 1];
+            }
+
+            beats[i] = new Beat
+            {
+                Sample = (long)Math.Round(t * RateHz),
+                Class = classOf?.Invoke(i) ?? BeatClass.N,
+                QrsMs = float.NaN,
+                Template = -1,
+                PWave = -1,
+                QrsOnOffset = Beat.Unknown,
+                QrsOffOffset = Beat.Unknown,
+                PPeakOffset = Beat.Unknown,
+                TEndOffset = Beat.Unknown,
+            };
+        }
+
+        return new BeatTrack(beats, RateHz, [], maxBeatGapS: 10);
+    }
+
+    public static List<double> Repeat(double rrS, int n) => Enumerable.Repeat(rrS, n).ToList();
+
+    public static RhythmResult NoRhythm(double durationS) => RhythmAnalyser.Analyse(new RhythmInput
+    {
+        Beats = Array.Empty<Beat>(),
+        ReferenceRateHz = RateHz,
+        DurationS = durationS,
+    });
+}

@@ -1,0 +1,91 @@
+using LongRecord.Analysis.Beats;
+using LongRecord.Analysis.Episodes;
+using LongRecord.Analysis.Settings;
+
+namespace LongRecord.Analysis.Tests.Episodes;
+
+/// <summary>
+/// Onset and offset on hand-worked RR sequences (the onset ratio after Swerdlow et al. 1994, J Am Coll Cardiol
+/// 23:1342 — each RR against the mean of the previous four; from memory), and the one-kind rule with the
+/// ANSI/AAMI EC57 run classes (couplet, run of 3–5, run of ≥ 6). Expected values are worked by hand in each test.
+/// </summary>
+public sealed class OnsetAndRunRuleTests
+{
+    private static readonly EpisodeSettings s_settings = AnalysisSettings.Default.Episodes;
+
+    [Fact]
+    public void StepFrom75To150Bpm_OnsetRatio05_IsAbrupt_AndTheReturnIsAbrupt()
+    {
+        // 20 RR of 0.8 s (75 bpm), 30 of 0.4 s (150 bpm), 20 of 0.8 s. Beat k ends RR k − 1.
+        var rr = EpisodeTrack.Repeat(0.8, 20).Concat(EpisodeTrack.Repeat(0.4, 30)).Concat(EpisodeTrack.Repeat(0.8, 20)).ToList();
+        var t = EpisodeTrack.FromRr(rr);
+        int first = 21, last = 50;   // the beats ending the 0.4 s intervals
+
+        var onset = OnsetOffset.Onset(t, first, last, s_settings);
+        var offset = OnsetOffset.Offset(t, first, last, s_settings);
+
+        Assert.Equal("abrupt", onset.Type);
+        Assert.Equal(0.5, onset.Ratio, 3);            // 0.4 / mean(0.8, 0.8, 0.8, 0.8)
+        Assert.Equal(0.0, onset.WarmUpS, 3);         // the first fast RR is already steady
+        Assert.Equal("abrupt", offset.Type);
+        Assert.Equal(2.0, offset.Ratio, 3);          // 0.8 / mean of the last four (0.4)
+    }
+
+    [Fact]
+    public void RampOf2PercentPerBeat_IsGradual()
+    {
+        // 20 RR of 0.8 s, then each RR 2 % shorter than the last down to 0.45 s, held 30 beats.
+        var rr = EpisodeTrack.Repeat(0.8, 20);
+        var x = 0.8;
+        while (x > 0.45)
+        {
+            x *= 0.98;
+            rr.Add(Math.Max(x, 0.45));
+        }
+
+        rr.AddRange(EpisodeTrack.Repeat(0.45, 30));
+        var t = EpisodeTrack.FromRr(rr);
+        // First beat above 100 bpm (RR < 0.6 s): 0.8 × 0.98^k < 0.6 from k = 15.
+        var first = 20 + 15;
+
+        var onset = OnsetOffset.Onset(t, first, rr.Count, s_settings);
+
+        // The median of the first five RR, 0.8 × 0.98^17 = 0.566 s, over the four before, mean 0.8 × 0.98^12.5 = 0.622 s:
+        // about 0.91, above the abrupt limit of 0.8.
+        Assert.Equal("gradual", onset.Type);
+        Assert.Equal(0.8 * Math.Pow(0.98, 17) / (0.8 * (Math.Pow(0.98, 11) + Math.Pow(0.98, 12) + Math.Pow(0.98, 13) + Math.Pow(0.98, 14)) / 4), onset.Ratio, 2);
+        Assert.True(onset.WarmUpS > 0);
+    }
+
+    [Theory]
+    [InlineData("svt", 10.0, 25, "sve-run", "run-6+")]
+    [InlineData("atrial-tachycardia", 2.0, 5, "sve-run", "run-3-5")]
+    [InlineData("broad-tachycardia", 1.5, 3, "ve-run", "run-3-5")]
+    [InlineData("broad-tachycardia", 30.0, 80, "broad-tachycardia", "")]
+    [InlineData("svt", 45.0, 130, "svt", "")]
+    [InlineData("sinus-tachycardia", 20.0, 40, "sinus-tachycardia", "")]
+    public void KindRule_Under30sEctopicIsARun_WithItsEc57RunClass(string kind, double durationS, int beats, string expectedKind, string expectedClass)
+    {
+        var (k, runClass) = EpisodeKindRule.Apply(kind, durationS, beats, s_settings.SustainedS);
+
+        Assert.Equal(expectedKind, k);
+        Assert.Equal(expectedClass, runClass);
+    }
+
+    [Fact]
+    public void ThreeVBeatsAndACouplet_AreOneRunOfThreeAndOneCouplet()
+    {
+        // 20 N beats at 0.8 s, V V V (at 0.45 s), 10 N, V V, 10 N: EC57 counts a run of 3 and a couplet.
+        var rr = EpisodeTrack.Repeat(0.8, 20).Concat(EpisodeTrack.Repeat(0.45, 3)).Concat(EpisodeTrack.Repeat(0.8, 10))
+            .Concat(EpisodeTrack.Repeat(0.45, 2)).Concat(EpisodeTrack.Repeat(0.8, 10)).ToList();
+        var t = EpisodeTrack.FromRr(rr, i => i is >= 21 and <= 23 or >= 34 and <= 35 ? BeatClass.V : BeatClass.N);
+
+        var candidates = CandidateFinder.Find(t, EpisodeTrack.NoRhythm(60), s_settings, out var sveCouplets, out var veCouplets);
+
+        var run = Assert.Single(candidates, c => c.Source.HasFlag(CandidateSource.VeRun));
+        Assert.Equal(21, run.First);
+        Assert.Equal(23, run.Last);
+        Assert.Equal(1, veCouplets);
+        Assert.Equal(0, sveCouplets);
+    }
+}
