@@ -1,5 +1,5 @@
-using LongRecord.Analysis.Episodes;
 using System.Globalization;
+using LongRecord.Analysis.Episodes;
 using LongRecord.Analysis.Rhythm;
 using LongRecord.Pipeline.Outputs;
 using LongRecord.Reporting.Model;
@@ -22,16 +22,31 @@ public static class ReportModelMapper
         {
             Patient = patient,
             Recording = new ReportRecording(recordingName, a.Info.FormatDetail, a.Info.StartDateTime, a.DurationS, a.ReferenceRateHz, a.LeadLabels, a.BeatSource, a.Info.HasSignal),
-            Figures = Figures(r),
+            Figures = Figures(r) with { EctopicRuns = EctopicRuns(a.Episodes) },
             Hours = r.Trend.Select(Hour).ToArray(),
             Episodes = episodes,
             EpisodeCounts = a.Episodes.CountsByKind(),
+            FlaggedEpisodeCount = Summary(a.Episodes, "episode_flagged_count"),
             Symptoms = a.Episodes.SymptomEvents.Select(Symptom).ToArray(),
             Distributions = DistributionsBuilder.Build(a.Beats, a.ReferenceRateHz, a.DurationS, a.Settings.Rhythm.MaxBeatGapS),
             Thresholds = new ReportThresholds(a.Settings.Pauses.ReportS, a.Settings.Pauses.HighlightS, a.Settings.Bradycardia.RateBpm, a.Settings.Bradycardia.MinDurationS, a.Settings.Af.MinEpisodeS),
             ToolVersion = SummaryJson.ToolVersion,
         };
     }
+
+    // The ectopic couplets and runs exactly as summary.json holds them (EC57 run classes).
+    private static IReadOnlyList<KeyValuePair<string, int>> EctopicRuns(EpisodeResult e) =>
+    [
+        new("SVE couplets", Summary(e, "sve_couplet_count")),
+        new("SVE runs of 3–5", Summary(e, "sve_run_3_5_count")),
+        new("SVE runs of ≥ 6", Summary(e, "sve_run_6_plus_count")),
+        new("VE couplets", Summary(e, "ve_couplet_count")),
+        new("VE runs of 3–5", Summary(e, "ve_run_3_5_count")),
+        new("VE runs of ≥ 6", Summary(e, "ve_run_6_plus_count")),
+    ];
+
+    private static int Summary(EpisodeResult e, string key) =>
+        Convert.ToInt32(EpisodeRows.Summary(e).First(kv => kv.Key == key).Value, CultureInfo.InvariantCulture);
 
     /// <summary>The figures exactly as summary.json holds them.</summary>
     public static ReportFigures Figures(RhythmResult r)

@@ -26,6 +26,9 @@ public sealed record ReportModel
     /// <summary>Episode counts per kind, in the order kinds first appear.</summary>
     public required IReadOnlyList<KeyValuePair<string, int>> EpisodeCounts { get; init; }
 
+    /// <summary>Episodes flagged for review, every one counted (the table shows a group of similar episodes once).</summary>
+    public int? FlaggedEpisodeCount { get; init; }
+
     public required ReportThresholds Thresholds { get; init; }
 
     /// <summary>Version of the tool that analysed the recording (as in summary.json).</summary>

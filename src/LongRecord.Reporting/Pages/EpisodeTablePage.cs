@@ -12,13 +12,14 @@ namespace LongRecord.Reporting.Pages;
 public sealed class EpisodeTablePage : IReportSection
 {
     private const float HeadMm = 12;
-    private const float RowMm = 7.8f;
+    private const float RowMm = 10.6f;
+    private const float EvidencePt = 7;
     private const float Pt = 8;
 
     private static readonly (string Title, float Width)[] s_columns =
     [
-        ("rank", 10), ("kind", 25), ("start", 23), ("duration", 17), ("beats", 13), ("rate, bpm", 21),
-        ("QRS", 24), ("rhythm", 16), ("onset / end seen", 22), ("review", 15),
+        ("rank", 10), ("kind", 34), ("start", 21), ("duration", 15), ("beats", 11), ("rate, bpm", 19),
+        ("QRS", 23), ("rhythm", 16), ("onset / end seen", 22), ("review", 15),
     ];
 
     public string Title => "Episodes";
@@ -32,8 +33,11 @@ public sealed class EpisodeTablePage : IReportSection
         var y = ReportContext.BodyTopMm + 5;
         var episodes = c.Model.Episodes;
         p.Text(page == 0 ? "Episodes, most important first" : "Episodes, continued", left, y, 11, Ink.Text, bold: true);
-        var flagged = episodes.Count(e => e.Flagged);
-        p.Text($"{Count(episodes.Count)} episodes, {Count(flagged)} flagged for review, {Count(episodes.Count(e => e.Urgent))} urgent", left + c.BodyWidthMm, y, 8, Ink.Muted, align: SKTextAlign.Right);
+        // Counts over every episode (as summary.json has them); a group of similar episodes is one row.
+        var total = c.Model.EpisodeCounts.Sum(kv => kv.Value);
+        var flagged = c.Model.FlaggedEpisodeCount ?? episodes.Count(e => e.Flagged);
+        var rows = total > episodes.Count ? $" in {Count(episodes.Count)} rows" : "";
+        p.Text($"{Count(total)} episodes{rows}, {Count(flagged)} flagged for review, {Count(episodes.Count(e => e.Urgent))} urgent", left + c.BodyWidthMm, y, 8, Ink.Muted, align: SKTextAlign.Right);
         y += 6;
         var x = left;
         foreach (var (title, width) in s_columns)
@@ -93,11 +97,33 @@ public sealed class EpisodeTablePage : IReportSection
         for (var i = 0; i < cells.Length; i++)
         {
             var color = i == cells.Length - 1 && e.Urgent ? Ink.Flag : Ink.Text;
-            p.Text(p.Fit(cells[i], s_columns[i].Width - 1.5f, Pt, bold: i == 1), x, y, Pt, color, bold: i == 1 || (i == cells.Length - 1 && e.Urgent));
+            // A long kind name is set a little smaller rather than cut.
+            var size = i == 1 && p.Measure(cells[i], Pt, bold: true) > s_columns[i].Width - 1.5f ? Pt - 1.2f : Pt;
+            p.Text(p.Fit(cells[i], s_columns[i].Width - 1.5f, size, bold: i == 1), x, y, size, color, bold: i == 1 || (i == cells.Length - 1 && e.Urgent));
             x += s_columns[i].Width - (i == 0 ? 2 : 0);
         }
 
-        p.Text(p.Fit(e.Evidence, c.BodyWidthMm - 14, 7), ReportContext.MarginMm + 10, y + 3.3f, 7, Ink.Muted);
+        var (line1, line2) = TwoLines(p, e.Evidence, c.BodyWidthMm - 14, EvidencePt);
+        p.Text(line1, ReportContext.MarginMm + 10, y + 3.3f, EvidencePt, Ink.Muted);
+        p.Text(line2, ReportContext.MarginMm + 10, y + 6.1f, EvidencePt, Ink.Muted);
         p.Line(ReportContext.MarginMm, top + RowMm, ReportContext.MarginMm + c.BodyWidthMm, top + RowMm, Ink.Panel, 0.2f);
+    }
+
+    // The evidence on two lines: whole words on the first, the rest on the second (shortened only if it overflows).
+    private static (string, string) TwoLines(Painter p, string text, float widthMm, float sizePt)
+    {
+        if (p.Measure(text, sizePt, false) <= widthMm)
+        {
+            return (text, "");
+        }
+
+        var words = text.Split(' ');
+        var n = 1;
+        while (n < words.Length && p.Measure(string.Join(' ', words[..(n + 1)]), sizePt, false) <= widthMm)
+        {
+            n++;
+        }
+
+        return (string.Join(' ', words[..n]), p.Fit(string.Join(' ', words[n..]), widthMm, sizePt));
     }
 }

@@ -112,7 +112,15 @@ public sealed class OverviewPage : IReportSection
             ($"Bradycardia (< {Number(t.BradycardiaBpm, 0)} bpm, ≥ {Number(t.BradycardiaMinS, 0)} s)", Count(f.BradycardiaCount)),
         };
         var beats = f.BeatsByClass.Select(kv => (ClassWords(kv.Key), Count(kv.Value))).ToList();
-        beats.Add(("Couplets and runs", f.EctopicRuns is null ? "not analysed" : string.Join(", ", f.EctopicRuns.Select(kv => $"{kv.Key} {kv.Value}"))));
+        if (f.EctopicRuns is null)
+        {
+            beats.Add(("Couplets and runs", "not analysed"));
+        }
+        else
+        {
+            beats.AddRange(f.EctopicRuns.Select(kv => (kv.Key, Count(kv.Value))));
+        }
+
         var hrv = new List<(string, string)>
         {
             ("SDNN", Number(f.SdnnMs, 1, "ms")),
@@ -125,13 +133,14 @@ public sealed class OverviewPage : IReportSection
             ("LF/HF ratio", Number(f.LfHfRatio, 3)),
             ("Left out of HRV", Duration(f.HrvExcludedS)),
         };
-        var episodes = m.EpisodeCounts.Select(kv => (Kind(kv.Key), Count(kv.Value))).ToList();
+        // Kinds found, most first; the kinds with none are left out (summary.json lists every kind).
+        var episodes = m.EpisodeCounts.Where(kv => kv.Value > 0).OrderByDescending(kv => kv.Value).Select(kv => (Kind(kv.Key), Count(kv.Value))).ToList();
         if (episodes.Count == 0)
         {
             episodes.Add(("Episodes", "none found"));
         }
 
-        episodes.Add(("Flagged for review", Count(m.Episodes.Count(e => e.Flagged))));
+        episodes.Add(("Flagged for review", Count(m.FlaggedEpisodeCount ?? m.Episodes.Count(e => e.Flagged))));
         var col = c.BodyWidthMm / 3;
         var row1 = Math.Max(rate.Count, Math.Max(af.Count, pauses.Count));
         Group(c, "Heart rate", rate, ReportContext.MarginMm, top, col - 3);

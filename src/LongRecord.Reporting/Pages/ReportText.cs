@@ -65,6 +65,13 @@ public static class ReportText
         "af-brief" => "AF-like, brief",
         "pause" => "Pause",
         "bradycardia" => "Bradycardia",
+        "svt" => "SVT",
+        "sve-run" => "SVE run",
+        "ve-run" => "VE run",
+        "mat" => "Multifocal atrial tachycardia",
+        "vf" => "Ventricular fibrillation (possible)",
+        "sinus-with-pacs" => "Sinus rhythm with frequent PACs",
+        "signal-loss" => "Signal lost on every lead",
         _ => kind.Length > 0 ? char.ToUpperInvariant(kind[0]) + kind[1..].Replace('-', ' ') : kind,
     };
 }

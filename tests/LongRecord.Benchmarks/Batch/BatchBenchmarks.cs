@@ -50,7 +50,7 @@ public static class BatchBenchmarks
             throw new InvalidOperationException(entry.Reason);
         }
 
-        Line($"whole summary of it (fingerprint, beats, rhythm, outputs; no PDF on main yet), one recording: {wholeS:F2} s wall, {wholeS / decodeS:F1}× the bare decode pass; peak resident memory {peakMb:F0} MB");
+        Line($"whole summary of it (fingerprint, beats, rhythm, episodes, outputs and the PDF), one recording: {wholeS:F2} s wall, {wholeS / decodeS:F1}× the bare decode pass; peak resident memory {peakMb:F0} MB");
         Line($"  {entry.Summary!.Beats} beats; stages: {entry.Timings}");
         var fingerprintS = Time(() => RecordingFingerprint.Compute(input, new SummaryOptions()));
         Line($"  of which the fingerprint (SHA-256 of {new FileInfo(big).Length / 1048576.0:F0} MB and its side files): {fingerprintS:F2} s");

@@ -1,5 +1,6 @@
 using System.Globalization;
 using System.Text.Json;
+using System.Text.RegularExpressions;
 using LongRecord.Reporting.Tests.Support;
 
 namespace LongRecord.Reporting.Tests.Pdf;
@@ -37,6 +38,14 @@ public sealed class DemoReportTests(SummarisedDemo demo) : IClassFixture<Summari
         Assert.Matches($@"Bradycardia \(< 50 bpm, ≥ 60 s\)\s+{Count(s, "bradycardia_count")}\b", text);
         Assert.Contains(Count(s, "beats_v"), text);
         Assert.Contains(Count(s, "beats_s"), text);
+        // The episodes stage's counts: flagged, couplets, and every kind found (summary.json's episodes_by_kind).
+        Assert.Matches($@"Flagged for review\s+{Count(s, "episode_flagged_count")}\b", text);
+        Assert.Matches($@"SVE couplets\s+{Count(s, "sve_couplet_count")}\b", text);
+        Assert.Matches($@"VE couplets\s+{Count(s, "ve_couplet_count")}\b", text);
+        foreach (var kind in s.GetProperty("episodes_by_kind").EnumerateObject().Where(k => k.Value.GetInt32() > 0))
+        {
+            Assert.Matches($@"{Regex.Escape(Reporting.Pages.ReportText.Kind(kind.Name))}\s+{kind.Value.GetInt32()}\b", text);
+        }
     }
 
     [Fact]
