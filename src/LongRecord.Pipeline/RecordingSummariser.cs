@@ -21,6 +21,11 @@ public static class RecordingSummariser
     {
         options ??= new SummaryOptions();
         var a = Analyse(input.Path, options, cancellation, observer);
+        if (options.Report.Privacy is not null && a.BeatSource != "detected")
+        {
+            // The path of a --beats file may name the patient: under --deidentify only its kind is written.
+            a = a with { BeatSource = $"{Path.GetExtension(a.BeatSource).TrimStart('.')} annotations (file name withheld)" };
+        }
 
         using var folder = new OutputFolder(Path.Combine(outputRoot, input.OutputName));
         BeatsCsv.Write(folder.File("beats.csv"), a.Beats, a.ReferenceRateHz);

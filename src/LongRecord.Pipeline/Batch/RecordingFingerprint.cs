@@ -154,6 +154,19 @@ public sealed class RecordingFingerprint
             node.Remove(name);
         }
 
+        // Under --deidentify a path given as an option (--beats FILE, --diary FILE) may name the patient: its content is
+        // in the file list already, so the path itself is withheld.
+        if (options.Report.Privacy is not null)
+        {
+            foreach (var (name, value) in node.ToArray())
+            {
+                if (value is JsonValue v && v.TryGetValue<string>(out var text) && (text.Contains('/') || text.Contains('\\') || File.Exists(text)))
+                {
+                    node[name] = "file (withheld)";
+                }
+            }
+        }
+
         // The report options by what they change: the template as loaded, and under --deidentify the key's identity.
         node["Report"] = new JsonObject
         {

@@ -57,6 +57,29 @@ public sealed class DeidentifyTests
     }
 
     [Fact]
+    public void ReanalysisFromABeatsFileNamedByThePatient_NoNameOrIdInAnyOutput()
+    {
+        using var folder = new TempFolder("deid");
+        var edf = folder.Path("Marchetti-Brandt SLC-2026-0417.edf");
+        CommandLine.Check("synth", "sinus-rest", "--out", edf, "--hours", "0.02");
+        // The synthesiser writes its truth beside the recording as NAME.atr: a beats file whose name is the patient's.
+        var beats = Path.ChangeExtension(edf, ".atr");
+        var (code, stdout, stderr) = CommandLine.Run("summarise", edf, "--out", folder.Path("out"), "--deidentify", "--beats", beats);
+        Assert.True(code == 0, stderr);
+        AssertClean("stdout", stdout);
+        AssertClean("stderr", stderr);
+        foreach (var path in Directory.GetFiles(folder.Path("out"), "*", SearchOption.AllDirectories))
+        {
+            AssertClean("path " + path, Path.GetRelativePath(folder.Path("out"), path));
+            AssertClean(path, File.ReadAllText(path, Encoding.Latin1));
+            if (path.EndsWith(".pdf", StringComparison.Ordinal))
+            {
+                AssertClean(path + " (text)", Poppler.Text(path, 1, Poppler.Pages(path)));
+            }
+        }
+    }
+
+    [Fact]
     public void SameKeyFile_SamePseudonym_AcrossRuns_OtherKey_OtherPseudonym()
     {
         using var folder = new TempFolder("deid");
