@@ -81,6 +81,7 @@ public sealed class BeatClassifier
             _previousAtrialValid = true;
             var normalWidth = float.IsNaN(measurements.QrsWidthMs) || double.IsNaN(normal.WidthMs) ? normal.SpreadMs : normal.WidthMs;
             beat.ExtraWidthMs = width - normalWidth;
+            beat.NormalWidthMs = normalWidth;
         }
 
         else
@@ -146,6 +147,7 @@ public sealed class BeatClassifier
         public double AmplitudeToNormal;
         public float WidthMs;
         public double ExtraWidthMs;
+        public double NormalWidthMs;
         public float Noise;
         public double TemplatePrematureShare;
         public double AtrialCorrelation;

@@ -4,7 +4,8 @@ namespace LongRecord.Analysis.Beats.Classification;
 /// The rules that turn a beat's shape (against the recording's normal template) and its timing (against the local
 /// rhythm) into an EC57 class.
 /// <list type="bullet">
-/// <item>V: a shape unlike the normal one (correlation below 0.9, or wider) and not narrower than it, which is
+/// <item>V: a shape unlike the normal one (correlation below 0.9, or wider) and not narrower than it (unless the
+/// normal beat itself is as wide as a bundle-branch block), which is
 /// premature and either clearly unlike (below 0.7), wide, or followed by a full compensatory pause; or, on time,
 /// clearly unlike and either wide or from a cluster whose beats are mostly premature.</item>
 /// <item>S: a normal-like shape, premature against the local rhythm and abruptly shorter than the RR before, with a
@@ -48,7 +49,9 @@ internal sealed class BeatDecision
         }
         else
         {
-            var narrower = beat.ExtraWidthMs < -_s.NarrowerMs;
+            // Narrower than the normal beat rules a ventricular origin out only when the normal beat conducts
+            // normally; behind a bundle-branch block an ectopic ventricular beat may well be the narrower one.
+            var narrower = beat.ExtraWidthMs < -_s.NarrowerMs && !(beat.NormalWidthMs >= _s.BundleBranchBlockMs);
             var normalShape = beat.IsNormalTemplate || (beat.CorrelationToNormal >= _s.NormalCorrelation && beat.ExtraWidthMs < _s.WideExtraMs);
             var clearlyDifferent = beat.CorrelationToNormal < _s.DifferentCorrelation;
             var wide = beat.ExtraWidthMs >= _s.WideExtraMs;

@@ -108,6 +108,13 @@ public sealed record ClassificationSettings
     public double NarrowerMs { get; init; } = 10;
 
     /// <summary>
+    /// A normal QRS at least this wide is taken as conducted with a bundle-branch block (complete BBB: QRS ≥ 120 ms;
+    /// AHA/ACCF/HRS 2009 recommendations on intraventricular conduction, from memory). Behind such a block a
+    /// ventricular ectopic beat may be narrower than the normal beat, so <see cref="NarrowerMs"/> no longer rules it out.
+    /// </summary>
+    public double BundleBranchBlockMs { get; init; } = 120;
+
+    /// <summary>
     /// The first premature supraventricular beat must also be this much shorter than the RR before it: sinus rate
     /// changes from beat to beat by a few per cent, a premature beat breaks the rhythm abruptly (common practice, no source).
     /// </summary>
