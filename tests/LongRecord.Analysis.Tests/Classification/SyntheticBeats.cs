@@ -4,11 +4,12 @@ namespace LongRecord.Analysis.Tests.Classification;
 /// A two-lead synthetic recording built from Gaussian waves, for worked examples of the textbook beat types: a sinus
 /// beat (upright P 160 ms before a narrow QRS), a premature atrial beat (inverted, earlier P, same QRS) and a
 /// premature ventricular beat (no P, broad QRS, discordant T), and a beat conducted in atrial fibrillation (no P,
-/// same QRS), with fibrillatory waves (a small irregular 4–9 Hz oscillation) over a chosen stretch.
+/// same QRS), with fibrillatory waves (a small irregular 4–9 Hz oscillation) over a chosen stretch; and, for a
+/// bundle-branch block, a sinus beat with a broad notched QRS and discordant T, and a ventricular beat narrower than it.
 /// </summary>
 internal static class SyntheticBeats
 {
-    public enum Kind { Sinus, Atrial, Ventricular, Conducted }
+    public enum Kind { Sinus, Atrial, Ventricular, Conducted, SinusBlocked, VentricularNarrow }
 
     public const double Fs = 250;
 
@@ -80,6 +81,14 @@ internal static class SyntheticBeats
         Kind.Atrial =>
         [
             (-0.120, -0.15, 0.015, 0.8), (0, 1.0, 0.010, 0.6), (0.025, -0.25, 0.008, 1.0), (0.250, 0.30, 0.040, 0.7),
+        ],
+        Kind.SinusBlocked =>
+        [
+            (-0.200, 0.15, 0.020, 0.8), (-0.025, 0.7, 0.018, 0.6), (0.035, 0.8, 0.018, 0.6), (0.300, -0.30, 0.050, 0.7),
+        ],
+        Kind.VentricularNarrow =>
+        [
+            (0, -0.9, 0.010, 0.8), (0.030, 0.5, 0.010, -0.5), (0.280, 0.45, 0.045, -0.5),
         ],
         _ =>
         [
