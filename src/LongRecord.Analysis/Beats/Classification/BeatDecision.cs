@@ -16,6 +16,14 @@ namespace LongRecord.Analysis.Beats.Classification;
 /// fibrillation): conducted beats there are N.</item>
 /// <item>Q: no usable signal, a noisy window, or an on-time beat of a shape that matches no template.</item>
 /// </list>
+/// Published ideas behind the rules (all from memory): the RR features — coupling RR and the RR after it judged
+/// against the local mean RR — of de Chazal, O'Dwyer and Reilly, IEEE Trans Biomed Eng 51(7), 2004, here as fixed
+/// ratios rather than a trained discriminant; the compensatory pause (complete after a ventricular beat, which leaves
+/// the sinus node alone; incomplete after an atrial one, which resets it) of the electrocardiography textbooks;
+/// per-recording clustering of beat shapes with the dominant cluster as the normal beat, as in the patient-adaptive
+/// classifiers (Llamedo and Martínez, IEEE Trans Biomed Eng 59(8), 2012), without their expert-labelled beats; and
+/// absent P waves with irregular RRs as the mark of atrial fibrillation, as in the detectors that add atrial activity
+/// to RR irregularity (for example Ladavich and Ghoraani, Biomed Signal Process Control 18, 2015).
 /// </summary>
 internal sealed class BeatDecision
 {
