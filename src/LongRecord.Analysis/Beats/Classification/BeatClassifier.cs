@@ -82,6 +82,8 @@ public sealed class BeatClassifier
             var normalWidth = float.IsNaN(measurements.QrsWidthMs) || double.IsNaN(normal.WidthMs) ? normal.SpreadMs : normal.WidthMs;
             beat.ExtraWidthMs = width - normalWidth;
             beat.NormalWidthMs = normalWidth;
+            beat.NormalBlocked = normal.WidthCount >= _settings.BundleBranchBlockBeats
+                && normal.WidthLowerQuartileMs >= _settings.BundleBranchBlockMs;
         }
 
         else
@@ -148,6 +150,7 @@ public sealed class BeatClassifier
         public float WidthMs;
         public double ExtraWidthMs;
         public double NormalWidthMs;
+        public bool NormalBlocked;
         public float Noise;
         public double TemplatePrematureShare;
         public double AtrialCorrelation;

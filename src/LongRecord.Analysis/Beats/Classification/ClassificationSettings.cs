@@ -118,6 +118,17 @@ public sealed record ClassificationSettings
     public double BundleBranchBlockMs { get; init; } = 120;
 
     /// <summary>
+    /// Beats with a measured width the normal template needs before its block is believed (as many as its running mean
+    /// spans, <see cref="TemplateAdaptBeats"/>; common practice, no source); the block is then judged
+    /// on the template's lower width quartile, so three quarters of its beats must reach <see cref="BundleBranchBlockMs"/>
+    /// (a stable block widens every conducted beat; a mean just over the limit may be noise or a P wave taken into the QRS).
+    /// </summary>
+    public int BundleBranchBlockBeats { get; init; } = 32;
+
+    /// <summary>Step of the running lower-quartile estimate of a template's QRS width, ms (about a tenth of the beat-to-beat spread of measured widths; common practice, no source).</summary>
+    public double WidthQuartileStepMs { get; init; } = 1;
+
+    /// <summary>
     /// The first premature supraventricular beat must also be this much shorter than the RR before it: sinus rate
     /// changes from beat to beat by a few per cent, a premature beat breaks the rhythm abruptly (common practice, no source).
     /// </summary>
