@@ -60,6 +60,30 @@ public sealed class EctopyPatternTests
         }
     }
 
+    [Fact]
+    public void NarrowerBeatWhenTheNormalWidthOnlyAveragesOverTheBlockLimit_IsNotV()
+    {
+        // The same rhythm as above, but the normal beats' handed-over widths spread 112–140 ms (mean 125 ms, a third
+        // of them under 120 ms), as a noisy record's measured widths do: a complete block widens every conducted beat
+        // to at least 120 ms (AHA/ACCF/HRS 2009, from memory), so this is no evidence of one, and a beat 25 ms
+        // narrower than the normal one cannot be ventricular (textbook, from memory).
+        var beats = new List<(double TimeS, SyntheticBeats.Kind Kind)>();
+        var t = 1.0;
+        for (var i = 0; i < 100; i++)
+        {
+            var ventricular = i is 40 or 70;
+            beats.Add((t, ventricular ? SyntheticBeats.Kind.VentricularNarrow : SyntheticBeats.Kind.SinusBlocked));
+            t += i is 39 or 69 ? 0.52 : ventricular ? 1.08 : 0.8;
+        }
+
+        float[] spread = [112, 116, 122, 128, 134, 140];
+        var next = 0;
+        var classes = Classify(beats, t + 1, k => k == SyntheticBeats.Kind.VentricularNarrow ? 100f : spread[next++ % spread.Length]);
+
+        Assert.NotEqual(BeatClass.V, classes[40].Class);
+        Assert.NotEqual(BeatClass.V, classes[70].Class);
+    }
+
     private static List<ClassifiedBeat> Classify(IReadOnlyList<(double TimeS, SyntheticBeats.Kind Kind)> beats, double lengthS, Func<SyntheticBeats.Kind, float> widthMs)
     {
         var fs = SyntheticBeats.Fs;
