@@ -21,12 +21,16 @@ namespace LongRecord.Analysis.Rhythm;
 /// absent P waves or an f-wave score relax the RR criteria.</item>
 /// </list>
 /// The window is centred on the interval judged (the analysis is offline), which places onsets and offsets within a
-/// few beats, and a window in which too few intervals were kept is not judged (not AF). O(n) time; three bytes per beat
-/// of working memory besides the series' own flags.
+/// few beats, and a window in which too few intervals were kept is not judged (not AF). Dropouts — intervals outside
+/// the conducted range, that is missed or spurious detections — take no room in the window: it reaches over them to
+/// the intervals that carry the rhythm, so that fibrillation seen through a detector that misses beats for minutes
+/// on end is still judged, while ectopic exclusions (evidence of an organised rhythm) still fill the window. O(n)
+/// time; three bytes per beat of working memory besides the series' own flags.
 /// </summary>
 internal sealed class AfDetector(AfSettings settings)
 {
-    // Bits of the per-interval measure word: kept, then for each lag (1–3) "compared", "alike" and "large".
+    // Bits of the per-interval measure word: kept, then for each lag (1–3) "compared", "alike" and "large", then the
+    // bigeminal swing and "takes room".
     internal const ushort Kept = 1;
 
     private readonly AfSettings _s = settings;
@@ -39,6 +43,9 @@ internal sealed class AfDetector(AfSettings settings)
 
     // Two large successive differences of opposite sign (short–long–short): the bigeminal swing.
     internal const ushort Swing = 1 << 10;
+
+    // The interval takes room in the window: any analysable interval but a missed or spurious detection.
+    internal const ushort Room = 1 << 11;
 
     private const byte Unjudgeable = 255;
 
@@ -68,21 +75,40 @@ internal sealed class AfDetector(AfSettings settings)
                 e++;
             }
 
-            // Analysable run of intervals [s, e): slide a centred window [lo, hi) over it.
+            // Analysable run of intervals [s, e): slide a centred window [lo, hi) over it. Each side holds at most
+            // its share of WindowBeats intervals that take room, and no more than needed for its share of kept ones:
+            // dropouts (missed or spurious detections) take no room, so the window reaches over them to the
+            // intervals that carry the rhythm, while ectopic exclusions still use up the window.
             w.Clear();
-            int lo = s, hi = s;
+            int lo = s, hi = s, keptBefore = 0, keptAfter = 0, roomBefore = 0, roomAfter = 0;
+            var wantBefore = half;
+            var wantAfter = _s.WindowBeats - half;
             for (var i = s; i < e; i++)
             {
-                var wantLo = Math.Max(s, i - half);
-                var wantHi = Math.Min(e, i + _s.WindowBeats - half);
-                for (; hi < wantHi; hi++)
+                if (i > s)
                 {
-                    w.Add(measure[hi], beats[hi].PWave, hasF ? fWaveScores[hi] : float.NaN, +1);
+                    var k = (measure[i - 1] & Kept) != 0 ? 1 : 0;
+                    var r = (measure[i - 1] & Room) != 0 ? 1 : 0;
+                    keptBefore += k;
+                    keptAfter -= k;
+                    roomBefore += r;
+                    roomAfter -= r;
                 }
 
-                for (; lo < wantLo; lo++)
+                while (hi < e && (keptAfter < wantAfter || hi <= i) && (roomAfter < wantAfter || (measure[hi] & Room) == 0))
+                {
+                    w.Add(measure[hi], beats[hi].PWave, hasF ? fWaveScores[hi] : float.NaN, +1);
+                    keptAfter += (measure[hi] & Kept) != 0 ? 1 : 0;
+                    roomAfter += (measure[hi] & Room) != 0 ? 1 : 0;
+                    hi++;
+                }
+
+                while (lo < i && (roomBefore > wantBefore || keptBefore - ((measure[lo] & Kept) != 0 ? 1 : 0) >= wantBefore))
                 {
                     w.Add(measure[lo], beats[lo].PWave, hasF ? fWaveScores[lo] : float.NaN, -1);
+                    keptBefore -= (measure[lo] & Kept) != 0 ? 1 : 0;
+                    roomBefore -= (measure[lo] & Room) != 0 ? 1 : 0;
+                    lo++;
                 }
 
                 level[i] = Judge(ref w, hi - lo);
@@ -183,13 +209,15 @@ internal sealed class AfDetector(AfSettings settings)
                 continue;
             }
 
+            var room = rr.Has(i, IntervalFlags.Dropout) ? (ushort)0 : Room;
             if (rr.Has(i, IntervalFlags.EctopicExcluded))
             {
+                measure[i] = room;
                 continue;
             }
 
             var x = rr.RrS[i];
-            var m = Kept;
+            var m = (ushort)(Kept | room);
             if (have >= 2)
             {
                 var d1 = x - previous[0];

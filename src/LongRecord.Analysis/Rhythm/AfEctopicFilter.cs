@@ -5,9 +5,10 @@ namespace LongRecord.Analysis.Rhythm;
 
 /// <summary>
 /// Ectopic beat filtering, the AF detector's first stage: marks intervals that leave the irregularity measure —
-/// around beats labelled V, F or Q; outside the conducted range; and, only where the recent kept intervals are
-/// regular, around premature beats (compensated or followed by the resumed rhythm), split intervals (an extra
-/// detection) and long intervals (a missed beat).
+/// around beats labelled V, F or Q; outside the conducted range (also marked as dropouts: missed or spurious
+/// detections, which take no room in the detector's window); and, only where the recent kept intervals are regular,
+/// around premature beats (compensated or followed by the resumed rhythm), split intervals (an extra detection) and
+/// long intervals (a missed beat).
 /// </summary>
 internal sealed class AfEctopicFilter(AfSettings settings)
 {
@@ -54,10 +55,12 @@ internal sealed class AfEctopicFilter(AfSettings settings)
 
             var x = rr.RrS[i];
             var next = i + 1 < n && rr.IsAnalysable(i + 1) ? rr.RrS[i + 1] : float.NaN;
+            // 0: kept; 1: this interval; 2: this and the next; 3: this one as a dropout (outside the conducted
+            // range: a missed or spurious detection, which says nothing about the rhythm).
             var exclude = 0;
             if (x < _s.MinConductedRrS || x > _s.MaxConductedRrS)
             {
-                exclude = 1;
+                exclude = 3;
             }
             else if (beats[i].Class is BeatClass.V or BeatClass.F or BeatClass.Q)
             {
@@ -69,7 +72,8 @@ internal sealed class AfEctopicFilter(AfSettings settings)
                 var tolerance = _s.CompensationTolerance * reference;
                 if (x > _s.LongRrFactor * reference)
                 {
-                    // A missed beat (or a long pause): the interval alone.
+                    // A missed beat (or a long pause) in a regular rhythm: the interval alone. Not a dropout: a
+                    // regular rhythm around it is evidence in itself.
                     exclude = 1;
                 }
                 else if (!float.IsNaN(next) && Math.Abs(x + next - reference) <= tolerance)
@@ -87,7 +91,7 @@ internal sealed class AfEctopicFilter(AfSettings settings)
 
             if (exclude > 0)
             {
-                rr.Flags[i] |= IntervalFlags.EctopicExcluded;
+                rr.Flags[i] |= IntervalFlags.EctopicExcluded | (exclude == 3 ? IntervalFlags.Dropout : IntervalFlags.None);
                 if (exclude == 2 && i + 1 < n)
                 {
                     rr.Flags[i + 1] |= IntervalFlags.EctopicExcluded;

@@ -26,4 +26,10 @@ internal enum IntervalFlags : byte
 
     /// <summary>The detector could not judge the window around it (too few intervals kept).</summary>
     Unjudged = 64,
+
+    /// <summary>
+    /// Left out of the AF measure as a dropout: outside the conducted range, so a missed or spurious detection rather
+    /// than a beat of the rhythm. Takes no room in the AF detector's window.
+    /// </summary>
+    Dropout = 128,
 }

@@ -6,7 +6,10 @@ namespace LongRecord.Analysis.Settings;
 /// </summary>
 public sealed record AfSettings
 {
-    /// <summary>RR intervals in the detector's sliding window, centred on the interval judged. 16: our choice, twice the 8 of Petrėnas et al. 2015.</summary>
+    /// <summary>
+    /// RR intervals in the detector's sliding window, centred on the interval judged (dropouts, see
+    /// <see cref="MaxConductedRrS"/>, take no room in it). 32: our choice, four times the 8 of Petrėnas et al. 2015.
+    /// </summary>
     public int WindowBeats { get; init; } = 32;
 
     /// <summary>
@@ -50,9 +53,10 @@ public sealed record AfSettings
 
     /// <summary>
     /// The premature, split and long rules apply only where the recent kept intervals are regular: their median
-    /// absolute deviation at most this fraction of their median. 0.05: our choice (sinus rhythm at rest).
+    /// absolute deviation at most this fraction of their median. 0.065: our choice (sinus rhythm at rest varies by a
+    /// few per cent beat to beat), chosen with LTAFDB, MITDB and NSR2DB all visible (see Rhythm/README.md).
     /// </summary>
-    public double RegularDeviationFraction { get; init; } = 0.05;
+    public double RegularDeviationFraction { get; init; } = 0.065;
 
     /// <summary>A kept interval longer than this many reference RRs is a missed beat or a pause and leaves the measure. 1.7: our choice.</summary>
     public double LongRrFactor { get; init; } = 1.7;
@@ -60,8 +64,12 @@ public sealed record AfSettings
     /// <summary>Shortest RR measured, seconds: faster than 250/min is beyond usual AV-nodal conduction. 0.24 s: physiology, from memory.</summary>
     public double MinConductedRrS { get; init; } = 0.24;
 
-    /// <summary>Longest RR measured, seconds (30/min); longer intervals leave the measure. 2.0 s: our choice.</summary>
-    public double MaxConductedRrS { get; init; } = 2.0;
+    /// <summary>
+    /// Longest RR measured, seconds (about 33/min). A longer interval, like one shorter than
+    /// <see cref="MinConductedRrS"/>, is a dropout — most often a missed detection — that leaves the measure and takes no
+    /// room in the window. 1.8 s: our choice, chosen with LTAFDB, MITDB and NSR2DB all visible (see Rhythm/README.md).
+    /// </summary>
+    public double MaxConductedRrS { get; init; } = 1.8;
 
     /// <summary>
     /// Bigeminal suppression: a window in which at least this share of successive pairs swing short–long (two large

@@ -3,15 +3,17 @@ namespace LongRecord.Analysis.Tests.Classification;
 /// <summary>
 /// A two-lead synthetic recording built from Gaussian waves, for worked examples of the textbook beat types: a sinus
 /// beat (upright P 160 ms before a narrow QRS), a premature atrial beat (inverted, earlier P, same QRS) and a
-/// premature ventricular beat (no P, broad QRS, discordant T).
+/// premature ventricular beat (no P, broad QRS, discordant T), and a beat conducted in atrial fibrillation (no P,
+/// same QRS), with fibrillatory waves (a small irregular 4–9 Hz oscillation) over a chosen stretch; and, for a
+/// bundle-branch block, a sinus beat with a broad notched QRS and discordant T, and a ventricular beat narrower than it.
 /// </summary>
 internal static class SyntheticBeats
 {
-    public enum Kind { Sinus, Atrial, Ventricular }
+    public enum Kind { Sinus, Atrial, Ventricular, Conducted, SinusBlocked, VentricularNarrow }
 
     public const double Fs = 250;
 
-    public static float[][] Render(IReadOnlyList<(double TimeS, Kind Kind)> beats, double lengthS)
+    public static float[][] Render(IReadOnlyList<(double TimeS, Kind Kind)> beats, double lengthS, double fibrillationFromS = 0, double fibrillationToS = 0)
     {
         var n = (int)(lengthS * Fs);
         var leads = new[] { new float[n], new float[n] };
@@ -22,11 +24,34 @@ internal static class SyntheticBeats
             leads[1][i] = (float)(0.005 * (noise.NextDouble() - 0.5));
         }
 
-        foreach (var (t, kind) in beats)
+        // Fibrillatory waves: a few incommensurate 4–9 Hz components whose phases wander, about 0.05 mV
+        // (f waves are 0.05–0.1 mV at 350–600 /min; textbook, from memory).
+        var phases = new double[] { 0.3, 1.9, 4.1 };
+        double[] hz = [4.7, 6.3, 8.1];
+        for (var i = (int)(fibrillationFromS * Fs); i < Math.Min(n, (int)(fibrillationToS * Fs)); i++)
         {
+            double f = 0;
+            for (var k = 0; k < hz.Length; k++)
+            {
+                phases[k] += 2 * Math.PI * hz[k] / Fs + 0.05 * (noise.NextDouble() - 0.5);
+                f += Math.Sin(phases[k]);
+            }
+
+            leads[0][i] += (float)(0.02 * f);
+            leads[1][i] += (float)(0.015 * f);
+        }
+
+        for (var b = 0; b < beats.Count; b++)
+        {
+            var (t, kind) = beats[b];
+
+            // Repolarisation shortens with the cycle before the beat (QT in proportion to √RR, Bazett 1920): the T
+            // wave, 250 ms after the QRS at 800 ms, comes earlier after a short cycle.
+            var rrS = b > 0 ? t - beats[b - 1].TimeS : 0.8;
+            var tScale = Math.Sqrt(Math.Clamp(rrS, 0.3, 2.0) / 0.8);
             foreach (var (at, amp, width, lead2) in Waves(kind))
             {
-                var centre = t + at;
+                var centre = t + (at >= 0.2 ? at * tScale : at);
                 var from = Math.Max(0, (int)((centre - 4 * width) * Fs));
                 var to = Math.Min(n - 1, (int)((centre + 4 * width) * Fs));
                 for (var i = from; i <= to; i++)
@@ -49,9 +74,21 @@ internal static class SyntheticBeats
         [
             (-0.160, 0.15, 0.020, 0.8), (0, 1.0, 0.010, 0.6), (0.025, -0.25, 0.008, 1.0), (0.250, 0.30, 0.040, 0.7),
         ],
+        Kind.Conducted =>
+        [
+            (0, 1.0, 0.010, 0.6), (0.025, -0.25, 0.008, 1.0), (0.250, 0.30, 0.040, 0.7),
+        ],
         Kind.Atrial =>
         [
             (-0.120, -0.15, 0.015, 0.8), (0, 1.0, 0.010, 0.6), (0.025, -0.25, 0.008, 1.0), (0.250, 0.30, 0.040, 0.7),
+        ],
+        Kind.SinusBlocked =>
+        [
+            (-0.200, 0.15, 0.020, 0.8), (-0.025, 0.7, 0.018, 0.6), (0.035, 0.8, 0.018, 0.6), (0.300, -0.30, 0.050, 0.7),
+        ],
+        Kind.VentricularNarrow =>
+        [
+            (0, -0.9, 0.010, 0.8), (0.030, 0.5, 0.010, -0.5), (0.280, 0.45, 0.045, -0.5),
         ],
         _ =>
         [

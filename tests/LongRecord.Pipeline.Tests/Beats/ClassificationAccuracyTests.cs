@@ -22,7 +22,7 @@ public sealed class ClassificationAccuracyTests(ITestOutputHelper output)
         Assert.True(veb.SensitivityPercent >= 90 && veb.PositivePredictivityPercent >= 90, veb.Line);
     }
 
-    [Fact(Skip = "not reached: MITDB SVEB Se 54.2 % < 70 % (+P 53.2 %, 43 records without the paced ones and 232)")]
+    [Fact]
     public void Mitdb_SupraventricularEctopicBeats_SeAtLeast70_PPAtLeast45_Without232()
     {
         var all = RecordRun.All("mitdb").Where(r => !s_paced.Contains(r.Record)).Select(r => r.Match()).ToArray();

@@ -17,6 +17,8 @@ public sealed class BeatClassifier
     private readonly Queue<ClassifiedBeat> _decided = new();
     private readonly BeatDecision _decision;
 
+    private float[] _previousAtrial;
+    private bool _previousAtrialValid;
     private Pending? _pending;
     private long _lastSample = -1;
 
@@ -34,6 +36,7 @@ public sealed class BeatClassifier
         _rhythm = new RhythmContext(_settings);
         _shape = _extractor.NewShape();
         _decision = new BeatDecision(_settings, _rhythm);
+        _previousAtrial = new float[_shape.Atrial.Length];
     }
 
     /// <summary>Beats decided and not yet taken.</summary>
@@ -73,8 +76,19 @@ public sealed class BeatClassifier
                 ? (match.Correlation, match.Amplitude, 0)
                 : _templates.BestShift(_shape, normal);
             beat.AtrialCorrelation = TemplateSet.AtrialCorrelation(_shape, normal);
+            beat.AtrialToPrevious = _previousAtrialValid ? Correlation(_shape.Atrial, _previousAtrial) : double.NaN;
+            _shape.Atrial.CopyTo(_previousAtrial, 0);
+            _previousAtrialValid = true;
             var normalWidth = float.IsNaN(measurements.QrsWidthMs) || double.IsNaN(normal.WidthMs) ? normal.SpreadMs : normal.WidthMs;
             beat.ExtraWidthMs = width - normalWidth;
+            beat.NormalWidthMs = normalWidth;
+            beat.NormalBlocked = normal.WidthCount >= _settings.BundleBranchBlockBeats
+                && normal.WidthLowerQuartileMs >= _settings.BundleBranchBlockMs;
+        }
+
+        else
+        {
+            _previousAtrialValid = false;
         }
 
         if (_pending is Pending previous)
@@ -110,6 +124,19 @@ public sealed class BeatClassifier
         _decided.Enqueue(new ClassifiedBeat(beat.Sample, cls, beat.Valid ? beat.Template : (short)-1, flags, beat.Valid ? beat.WidthMs : float.NaN));
     }
 
+    private static double Correlation(ReadOnlySpan<float> x, ReadOnlySpan<float> y)
+    {
+        double dot = 0, ex = 0, ey = 0;
+        for (var i = 0; i < x.Length; i++)
+        {
+            dot += x[i] * y[i];
+            ex += x[i] * x[i];
+            ey += y[i] * y[i];
+        }
+
+        return ex > 0 && ey > 0 ? dot / Math.Sqrt(ex * ey) : double.NaN;
+    }
+
     internal struct Pending
     {
         public long Sample;
@@ -122,9 +149,12 @@ public sealed class BeatClassifier
         public double AmplitudeToNormal;
         public float WidthMs;
         public double ExtraWidthMs;
+        public double NormalWidthMs;
+        public bool NormalBlocked;
         public float Noise;
         public double TemplatePrematureShare;
         public double AtrialCorrelation;
+        public double AtrialToPrevious;
         public bool NewShape;
     }
 }

@@ -4,27 +4,40 @@ namespace LongRecord.Analysis.Beats.Classification;
 /// The rules that turn a beat's shape (against the recording's normal template) and its timing (against the local
 /// rhythm) into an EC57 class.
 /// <list type="bullet">
-/// <item>V: a shape unlike the normal one (correlation below 0.9, or wider) and not narrower than it, which is
+/// <item>V: a shape unlike the normal one (correlation below 0.9, or wider) and not narrower than it (unless the
+/// normal beat itself is as wide as a bundle-branch block), which is
 /// premature and either clearly unlike (below 0.7), wide, or followed by a full compensatory pause; or, on time,
 /// clearly unlike and either wide or from a cluster whose beats are mostly premature.</item>
 /// <item>S: a normal-like shape, premature against the local rhythm and abruptly shorter than the RR before, with a
 /// pre-QRS segment unlike the sinus one (ectopic P, or P hidden in the T wave), followed by a longer RR (the pause)
-/// or by more premature beats (a run); runs continue while the RR stays short and steady. Never during irregularly
-/// irregular rhythm without sinus P waves (atrial fibrillation): conducted beats there are N.</item>
+/// or by more premature beats (a run). A run goes on while its RRs stay short against the rhythm before it; while it
+/// looks like atrial fibrillation setting in (RRs jumping from beat to beat, pre-QRS segments unlike each other, few
+/// P waves) its beats are N. Never during irregularly irregular rhythm without P waves on the on-time beats (atrial
+/// fibrillation): conducted beats there are N.</item>
 /// <item>Q: no usable signal, a noisy window, or an on-time beat of a shape that matches no template.</item>
 /// </list>
+/// Published ideas behind the rules (all from memory): the RR features — coupling RR and the RR after it judged
+/// against the local mean RR — of de Chazal, O'Dwyer and Reilly, IEEE Trans Biomed Eng 51(7), 2004, here as fixed
+/// ratios rather than a trained discriminant; the compensatory pause (complete after a ventricular beat, which leaves
+/// the sinus node alone; incomplete after an atrial one, which resets it) of the electrocardiography textbooks;
+/// per-recording clustering of beat shapes with the dominant cluster as the normal beat, as in the patient-adaptive
+/// classifiers (Llamedo and Martínez, IEEE Trans Biomed Eng 59(8), 2012), without their expert-labelled beats; and
+/// absent P waves with irregular RRs as the mark of atrial fibrillation, as in the detectors that add atrial activity
+/// to RR irregularity (for example Ladavich and Ghoraani, Biomed Signal Process Control 18, 2015).
 /// </summary>
 internal sealed class BeatDecision
 {
     private readonly ClassificationSettings _s;
     private readonly RhythmContext _rhythm;
-    private int _run;
-    private double _atrialSimilarity = 1;
+    private readonly AtrialActivity _atrial;
+    private readonly SupraventricularRun _run = new();
+    private bool _episodeContinues;
 
     public BeatDecision(ClassificationSettings settings, RhythmContext rhythm)
     {
         _s = settings;
         _rhythm = rhythm;
+        _atrial = new AtrialActivity(settings);
     }
 
     public BeatClass PreviousClass { get; private set; } = BeatClass.N;
@@ -44,7 +57,10 @@ internal sealed class BeatDecision
         }
         else
         {
-            var narrower = beat.ExtraWidthMs < -_s.NarrowerMs;
+            // Narrower than the normal beat rules a ventricular origin out only when the normal beat conducts
+            // normally; behind a bundle-branch block an ectopic ventricular beat may well be the narrower one. The
+            // block needs evidence: most of the normal template's beats measured wide, not a mean just over the limit.
+            var narrower = beat.ExtraWidthMs < -_s.NarrowerMs && !beat.NormalBlocked;
             var normalShape = beat.IsNormalTemplate || (beat.CorrelationToNormal >= _s.NormalCorrelation && beat.ExtraWidthMs < _s.WideExtraMs);
             var clearlyDifferent = beat.CorrelationToNormal < _s.DifferentCorrelation;
             var wide = beat.ExtraWidthMs >= _s.WideExtraMs;
@@ -60,28 +76,33 @@ internal sealed class BeatDecision
             else
             {
                 cls = Supraventricular(rrPrev, rrBefore, rrNextS, local, premature, beat) ? BeatClass.S : BeatClass.N;
-                if (!premature && !double.IsNaN(beat.AtrialCorrelation))
+                if (!premature)
                 {
-                    _atrialSimilarity += (beat.AtrialCorrelation - _atrialSimilarity) / 16;
+                    _atrial.AddOnTime(beat.PWave, beat.AtrialCorrelation);
                 }
             }
         }
 
-        Follow(cls, rrPrev);
+        Follow(cls, rrPrev, local, beat);
         return (cls, flags);
     }
 
     private bool Supraventricular(double rrPrev, double rrBefore, double rrNext, double local, bool premature, in BeatClassifier.Pending beat)
     {
-        if (!premature || Fibrillation(beat.PWave))
+        _episodeContinues = false;
+        if (_run.Length > 0)
+        {
+            return ContinuesRun(rrPrev, beat);
+        }
+
+        if (!premature)
         {
             return false;
         }
 
-        if (PreviousClass == BeatClass.S)
+        if (_atrial.Fibrillation(_rhythm))
         {
-            // Inside a run: the RR stays short against the rhythm before the run, and steady.
-            return _run < _s.MaxRunBeats && Math.Abs(rrPrev - rrBefore) <= _s.RunSteadiness * rrBefore;
+            return false;
         }
 
         var abrupt = double.IsNaN(rrBefore) || rrPrev < _s.AbruptRatio * rrBefore;
@@ -93,24 +114,39 @@ internal sealed class BeatDecision
         return abrupt && pauseOrRun && !sinusP;
     }
 
-    private bool Fibrillation(sbyte pWave)
+    // Inside a run of premature supraventricular beats, each further beat belongs to it while it stays premature
+    // against the rhythm before the run: an ectopic atrial rhythm need not be regular (multifocal, or with varying
+    // conduction), and its own rate must not become the reference it is judged against. While the run looks like
+    // atrial fibrillation setting in (RRs jumping from beat to beat, pre-QRS segments unlike each other) its beats
+    // are N; should it settle into a steady ectopic rhythm (a focus warming up), they are S again.
+    private bool ContinuesRun(double rrPrev, in BeatClassifier.Pending beat)
     {
-        if (pWave == 1)
+        if (_run.Length >= _s.MaxRunBeats || double.IsNaN(rrPrev) || rrPrev >= _s.PrematureRatio * _run.ReferenceRr)
         {
             return false;
         }
 
-        // Irregularly irregular RRs without P waves. With no P-wave judgement from delineation, the pre-QRS segments'
-        // likeness to the sinus template stands in for it: fibrillatory waves are not alike from beat to beat.
-        // Sinus-like P waves on the on-time beats rule fibrillation out, however irregular the RRs (frequent
-        // premature atrial beats make them so).
-        var noP = pWave == 0 || _atrialSimilarity < _s.FibrillationAtrialCorrelation;
-        var sinusP = pWave != 0 && _atrialSimilarity >= _s.SinusAtrialCorrelation;
-        var irregularity = _rhythm.Irregularity(orAll: noP);
-        return (noP && irregularity > _s.IrregularityWithoutPThreshold) || (!sinusP && irregularity > _s.IrregularityThreshold);
+        _episodeContinues = true;
+        var irregularity = _run.Irregularity(rrPrev);
+        var pPresence = _run.PPresence(beat.PWave);
+        var consistency = _run.Consistency(beat.AtrialToPrevious);
+        var judged = _run.Length >= _s.RunJudgedAfterBeats;
+        if (!_run.Suspended)
+        {
+            var fibrillatory = judged && consistency < _s.RunAtrialConsistency
+                && (irregularity > _s.RunIrregularity || pPresence < _s.FibrillationPPresence);
+            _run.Suspended = fibrillatory;
+        }
+        else
+        {
+            var steady = judged && consistency >= _s.RunAtrialConsistency && irregularity <= _s.RunIrregularity;
+            _run.Suspended = !steady;
+        }
+
+        return !_run.Suspended;
     }
 
-    private void Follow(BeatClass cls, double rrPrev)
+    private void Follow(BeatClass cls, double rrPrev, double local, in BeatClassifier.Pending beat)
     {
         // Irregularity is judged on the RRs between beats of the underlying rhythm: in sinus rhythm with frequent
         // ectopic beats those stay regular; in fibrillation the on-time RRs alone are irregular enough.
@@ -127,8 +163,21 @@ internal sealed class BeatDecision
             _rhythm.AddNormalRr(rrPrev);
         }
 
-        _run = cls == BeatClass.S ? _run + 1 : 0;
-        if (_run >= _s.MaxRunBeats)
+        if (cls != BeatClass.S && !(cls == BeatClass.N && _episodeContinues))
+        {
+            _run.End();
+        }
+        else
+        {
+            if (_run.Length == 0)
+            {
+                _run.Start(local);
+            }
+
+            _run.Add(rrPrev, beat.PWave, beat.AtrialToPrevious);
+        }
+
+        if (_run.Length >= _s.MaxRunBeats)
         {
             // A run this long is a new rhythm, not a string of premature beats: the local rhythm starts again from it.
             _rhythm.ResetNormal();

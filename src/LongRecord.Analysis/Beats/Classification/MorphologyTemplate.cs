@@ -41,6 +41,12 @@ internal sealed class MorphologyTemplate
     /// <summary>Running mean of the caller's QRS widths, ms, or NaN when none was given.</summary>
     public double WidthMs { get; set; } = double.NaN;
 
+    /// <summary>Running lower quartile of the caller's QRS widths, ms (stochastic approximation), or NaN when none was given.</summary>
+    public double WidthLowerQuartileMs { get; set; } = double.NaN;
+
+    /// <summary>Beats whose QRS width the caller gave.</summary>
+    public long WidthCount { get; set; }
+
     public double NoiseRatio { get; set; }
 
     public bool InUse { get; set; }

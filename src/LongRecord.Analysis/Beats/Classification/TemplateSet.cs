@@ -238,6 +238,8 @@ internal sealed class TemplateSet
         s.Weight = s.OnTimeWeight = s.PrematureWeight = 0;
         s.SpreadMs = 0;
         s.WidthMs = double.NaN;
+        s.WidthLowerQuartileMs = double.NaN;
+        s.WidthCount = 0;
         s.NoiseRatio = 0;
         Array.Clear(s.Mean);
         Array.Clear(s.Atrial);
@@ -279,6 +281,15 @@ internal sealed class TemplateSet
         if (!double.IsNaN(widthMs))
         {
             t.WidthMs = double.IsNaN(t.WidthMs) ? widthMs : t.WidthMs + alpha * (widthMs - t.WidthMs);
+
+            // Robbins–Monro quantile step: down by 3 parts below, up by 1 part above, so that it settles where a
+            // quarter of the widths lie below (the mean alone cannot tell a few very wide beats from most beats wide).
+            var step = _settings.WidthQuartileStepMs;
+            t.WidthLowerQuartileMs = double.IsNaN(t.WidthLowerQuartileMs) ? widthMs
+                : widthMs < t.WidthLowerQuartileMs ? t.WidthLowerQuartileMs - 0.75 * step
+                : widthMs > t.WidthLowerQuartileMs ? t.WidthLowerQuartileMs + 0.25 * step
+                : t.WidthLowerQuartileMs;
+            t.WidthCount++;
         }
 
         t.Weight += 1;
