@@ -9,6 +9,7 @@ namespace LongRecord.Benchmarks;
 /// <c>dotnet run -c Release --project tests/LongRecord.Benchmarks</c> runs the BenchmarkDotNet suites;
 /// <c>-- --short</c> prints quick figures (used by CI: figures only, never a gate);
 /// <c>-- --memory</c> reads a 72 h recording and prints the peak working set;
+/// <c>-- --ltafdb</c> re-analyses every LTAFDB record present from its .qrs beats and prints the time;
 /// <c>-- --batch</c> prints the batch issue's figures (<c>--single</c>: the 72 h recording only).
 /// <c>-- --episodes</c> times beats, rhythm and episodes of the 24 h demo day.
 /// </summary>
@@ -31,6 +32,12 @@ public static class Program
         if (args.Contains("--episodes"))
         {
             EpisodeBenchmarks.Short();
+            return 0;
+        }
+
+        if (args.Contains("--ltafdb"))
+        {
+            LtafdbRhythmRun.Run();
             return 0;
         }
 
