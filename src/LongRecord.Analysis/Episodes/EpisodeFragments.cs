@@ -10,7 +10,8 @@ namespace LongRecord.Analysis.Episodes;
 /// unknown-width <c>unclassified-tachycardia</c>); a sinus tachycardia and its narrow regular pieces (not its runs of
 /// PACs, which are episodes of their own); a broad-complex tachycardia and its <c>ve-run</c> and broad pieces. A
 /// <c>ve-run</c> inside AF or a sinus tachycardia stays its own episode, as does anything beside AF (AF is the rhythm
-/// stage's, with its own extent). A candidate of fewer than the minimum run of beats is no episode.
+/// stage's, with its own extent). Two episodes of one ectopic tachycardia kind that near are one, whatever their
+/// lengths. A candidate of fewer than the minimum run of beats is no episode.
 /// </summary>
 internal static class EpisodeFragments
 {
@@ -18,30 +19,51 @@ internal static class EpisodeFragments
     {
         var s = settings.Episodes;
         var list = drafts.Where(d => d.Last - d.First + 1 >= s.RunMinimumBeats).OrderBy(d => d.First).ToList();
-        var changed = true;
-        while (changed)
+        var startS = list.Select(d => t.TimeS(d.First)).ToArray();
+        var current = list.ToDictionary(d => d, d => d);
+        var absorbed = new HashSet<Draft>();
+        // Hosts longest first, so that a piece joins the tachycardia it belongs to rather than another piece. Only the
+        // drafts that start near a host are looked at: a piece is shorter than its host, so it starts at most the longer
+        // of the sustained duration and the host's own duration (plus the gap) before it.
+        foreach (var original in list.OrderByDescending(d => d.Last - d.First).ToList())
         {
-            changed = false;
-            // Hosts longest first, so that a piece joins the tachycardia it belongs to rather than another piece.
-            foreach (var host in list.OrderByDescending(d => d.Last - d.First).ToList())
+            if (absorbed.Contains(original))
             {
-                var piece = list.FirstOrDefault(p => p != host && p.Last - p.First < host.Last - host.First
-                    && p.Episode.DurationS < s.SustainedS && Related(host, p) && Near(host, p, t, s.FragmentGapS));
-                if (piece is null)
-                {
-                    continue;
-                }
+                continue;
+            }
 
-                list.Remove(piece);
-                var index = list.IndexOf(host);
-                list[index] = Rebuild(host, Math.Min(host.First, piece.First), Math.Max(host.Last, piece.Last), t, settings);
-                changed = true;
-                break;
+            var host = current[original];
+            var grew = true;
+            while (grew)
+            {
+                grew = false;
+                var from = Array.BinarySearch(startS, host.Episode.StartS - Math.Max(s.SustainedS, host.Episode.DurationS) - s.FragmentGapS);
+                from = from < 0 ? ~from : from;
+                for (var j = from; j < list.Count && startS[j] <= host.Episode.EndS + s.FragmentGapS; j++)
+                {
+                    var p = list[j];
+                    if (p == original || absorbed.Contains(p))
+                    {
+                        continue;
+                    }
+
+                    var piece = current[p];
+                    if (piece.Last - piece.First <= host.Last - host.First
+                        && ((piece.Episode.DurationS < s.SustainedS && Related(host, piece)) || SameTachycardia(host, piece))
+                        && Near(host, piece, t, s.FragmentGapS))
+                    {
+                        absorbed.Add(p);
+                        host = Rebuild(host, Math.Min(host.First, piece.First), Math.Max(host.Last, piece.Last), t, settings);
+                        current[original] = host;
+                        grew = true;
+                    }
+                }
             }
         }
 
-        list.Sort((a, b) => a.First.CompareTo(b.First));
-        return list;
+        var result = list.Where(d => !absorbed.Contains(d)).Select(d => current[d]).ToList();
+        result.Sort((a, b) => a.First.CompareTo(b.First));
+        return result;
     }
 
     private static bool Related(Draft host, Draft piece)
@@ -65,6 +87,10 @@ internal static class EpisodeFragments
 
         return false;
     }
+
+    // Two pieces of one ectopic tachycardia kind (a flutter whose conduction changes for a few beats) are one.
+    private static bool SameTachycardia(Draft host, Draft piece) =>
+        host.RawKind == piece.RawKind && (EpisodeKinds.IsSupraventricularEctopic(host.RawKind) || host.RawKind == EpisodeKinds.BroadTachycardia);
 
     // Overlapping, or the gap between them at most gapS and analysable throughout.
     private static bool Near(Draft host, Draft piece, BeatTrack t, double gapS)
