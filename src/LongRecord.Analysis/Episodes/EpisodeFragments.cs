@@ -20,8 +20,14 @@ internal static class EpisodeFragments
         var s = settings.Episodes;
         var list = drafts.Where(d => d.Last - d.First + 1 >= s.RunMinimumBeats).OrderBy(d => d.First).ToList();
         var startS = list.Select(d => t.TimeS(d.First)).ToArray();
-        var current = list.ToDictionary(d => d, d => d);
-        var absorbed = new HashSet<Draft>();
+        // By reference: drafts are records, and two with equal values are still two drafts.
+        var current = new Dictionary<Draft, Draft>(ReferenceEqualityComparer.Instance);
+        foreach (var d in list)
+        {
+            current[d] = d;
+        }
+
+        var absorbed = new HashSet<Draft>(ReferenceEqualityComparer.Instance);
         // Hosts longest first, so that a piece joins the tachycardia it belongs to rather than another piece. Only the
         // drafts that start near a host are looked at: a piece is shorter than its host, so it starts at most the longer
         // of the sustained duration and the host's own duration (plus the gap) before it.
@@ -42,7 +48,7 @@ internal static class EpisodeFragments
                 for (var j = from; j < list.Count && startS[j] <= host.Episode.EndS + s.FragmentGapS; j++)
                 {
                     var p = list[j];
-                    if (p == original || absorbed.Contains(p))
+                    if (ReferenceEquals(p, original) || absorbed.Contains(p))
                     {
                         continue;
                     }
