@@ -6,13 +6,16 @@ namespace LongRecord.Analysis.Episodes;
 /// The rhythm stage finds AF from the RR intervals, so its episodes can start a few beats late and end a few beats
 /// late (its windows need irregular intervals on both sides). With P waves judged on the signal, an AF episode's ends
 /// are moved to the P waves: up to four beats with a P wave at either end are left out, and up to four beats without
-/// one just before it are taken in; a last interval over 1.5 times the episode's median RR that leads into sinus rhythm
+/// one just before it are taken in; a steady tail of sinus beats (see SteadyTail) is left out; a last interval over 1.5 times the episode's median RR that leads into sinus rhythm
 /// (the pause as AF stops) is left out. Nothing moves when the beats carry no P-wave judgement.
 /// </summary>
 internal static class AfExtent
 {
     private const int MaxBeats = 4;
     private const double LongFactor = 1.5;
+
+    // Our choice: sinus RR after AF in the synthetic catalogue stay within 3 %; 6 % as the episodes' steady fraction.
+    private const double SteadyFraction = 0.06;
 
     public static (int First, int Last) Refine(BeatTrack t, int first, int last)
     {
@@ -36,6 +39,11 @@ internal static class AfExtent
             l--;
         }
 
+        if (l == last)
+        {
+            l = SteadyTail(t, f, l);
+        }
+
         // The long interval into the first beat after AF (the pause as sinus rhythm resumes) ends the episode one beat
         // earlier when that beat's P wave was missed.
         if (l > f + 4 && l != last && t[l].PWave == 0 && t.HasRr(l) && t.RrS[l] > LongFactor * OnsetOffset.MedianRr(t, f + 1, l))
@@ -49,5 +57,41 @@ internal static class AfExtent
         }
 
         return (f, l);
+    }
+
+    // In noise the P wave of a sinus beat after AF is missed now and then, so the P-wave rule above stops at once. A
+    // tail of up to four beats at the episode's end whose RR (the pause into it aside) are steady — each within
+    // SteadyFraction of their median, which AF's intervals seldom are three times in a row — and of which at least
+    // half carry a P wave is sinus rhythm again, and is left out.
+    private static int SteadyTail(BeatTrack t, int f, int l)
+    {
+        for (var k = MaxBeats; k >= 3; k--)
+        {
+            var from = l - k + 1;
+            if (from <= f + 4)
+            {
+                continue;
+            }
+
+            int withP = 0;
+            for (var i = from; i <= l; i++)
+            {
+                withP += t[i].PWave == 1 ? 1 : 0;
+            }
+
+            var median = OnsetOffset.MedianRr(t, from + 1, l);
+            var steady = withP * 2 >= k && !double.IsNaN(median);
+            for (var i = from + 1; steady && i <= l; i++)
+            {
+                steady = t.HasRr(i) && Math.Abs(t.RrS[i] - median) <= SteadyFraction * median;
+            }
+
+            if (steady)
+            {
+                return from - 1;
+            }
+        }
+
+        return l;
     }
 }

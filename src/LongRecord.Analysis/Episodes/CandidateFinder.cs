@@ -112,6 +112,21 @@ internal static class CandidateFinder
         Close(track, s, list, first, last);
     }
 
+    // A premature S or V beat's short interval says nothing about the rate of the rhythm around it (and a V beat may
+    // belong to a run of its own).
+    private static bool NoEctopic(BeatTrack track, int from, int to)
+    {
+        for (var i = from; i <= to; i++)
+        {
+            if (track[i].Class is BeatClass.S or BeatClass.V)
+            {
+                return false;
+            }
+        }
+
+        return true;
+    }
+
     private static bool Analysable(BeatTrack track, int from, int to)
     {
         for (var i = from + 1; i <= to; i++)
@@ -141,8 +156,39 @@ internal static class CandidateFinder
 
         if (60.0 * (last - first + 1) / sum >= s.TachycardiaRateBpm)
         {
-            list.Add(new Candidate(first, last, CandidateSource.Fast));
+            var (from, to) = Edges(track, s, first, last);
+            list.Add(new Candidate(from, to, CandidateSource.Fast));
         }
+    }
+
+    // Near the tachycardia rate (an irregular MAT, the ramp of a sinus tachycardia) the RR cross the threshold back and
+    // forth, so the first and last fast beats of the rhythm sit in pieces too short to make a run. An episode takes in
+    // fast intervals at most the merge gap of slower beats beyond either end (once: no chain of them; not across S or V
+    // beats), as it does between its own runs.
+    private static (int First, int Last) Edges(BeatTrack track, EpisodeSettings s, int first, int last)
+    {
+        var fastRrS = 60.0 / s.TachycardiaRateBpm;
+        var from = first;
+        for (var j = first - 1 - s.MergeGapBeats; j < first; j++)
+        {
+            if (j >= 1 && track.HasRr(j) && track.RrS[j] < fastRrS && Analysable(track, j, first) && NoEctopic(track, j, first - 1))
+            {
+                from = j;
+                break;
+            }
+        }
+
+        var to = last;
+        for (var j = last + 1 + s.MergeGapBeats; j > last; j--)
+        {
+            if (j < track.Count && track.HasRr(j) && track.RrS[j] < fastRrS && Analysable(track, last, j) && NoEctopic(track, last + 1, j))
+            {
+                to = j;
+                break;
+            }
+        }
+
+        return (from, to);
     }
 
     private static void ClassRuns(BeatTrack track, EpisodeSettings s, List<Candidate> list, out int sveCouplets, out int veCouplets)

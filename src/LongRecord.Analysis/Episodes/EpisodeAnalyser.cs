@@ -34,6 +34,7 @@ public static class EpisodeAnalyser
         }
 
         drafts = FlutterExtent.Extend(drafts, track, settings);
+        drafts = EpisodeFragments.Absorb(drafts, track, settings);
 
         var episodes = drafts.Select(d => d.Episode).ToList();
         foreach (var (first, last, kind, cycles) in BigeminyFinder.Find(track, s))

@@ -40,6 +40,18 @@ internal static class FlutterExtent
                 last++;
             }
 
+            // Sinus beside flutter lands near four cycles now and then: two long intervals in a row at an end of
+            // the walk are sinus rhythm, not flutter (at most four such beats are given back).
+            for (var k = 0; k < 4 && first < d.First && Long(t, first, cycle) && Long(t, first + 1, cycle); k++)
+            {
+                first++;
+            }
+
+            for (var k = 0; k < 4 && last > d.Last && Long(t, last, cycle) && Long(t, last - 1, cycle); k++)
+            {
+                last--;
+            }
+
             result.Add(d with { First = first, Last = last });
         }
 
@@ -96,7 +108,10 @@ internal static class FlutterExtent
         return merged;
     }
 
-    // The RR ending at beat i is a whole number (≥ 2) of flutter cycles.
+    // The RR ending at beat i is a whole number (≥ 2) of flutter cycles, or it is together with the RR before or after
+    // it: flutter waves on the QRS move a beat's detected time by up to about 30 ms (the synthetic flutter with variable
+    // conduction at 24 dB), which puts both intervals around that beat off the grid while their sum stays on it (checked next to a 2:1
+    // interval only).
     private static bool Multiple(BeatTrack t, int i, double cycle)
     {
         if (!t.HasRr(i))
@@ -104,7 +119,20 @@ internal static class FlutterExtent
             return false;
         }
 
-        var m = Math.Round(t.RrS[i] / cycle);
-        return m >= 2 && Math.Abs(t.RrS[i] - m * cycle) <= Tolerance * cycle;
+        return OnGrid(t.RrS[i], cycle, 2)
+            || (i > 1 && t.HasRr(i - 1) && Pair(t.RrS[i - 1], t.RrS[i], cycle))
+            || (i + 1 < t.Count && t.HasRr(i + 1) && Pair(t.RrS[i], t.RrS[i + 1], cycle));
+    }
+
+    // Only around a 2:1 interval: two sinus intervals near four cycles each would otherwise walk the episode into the
+    // sinus rhythm beside it.
+    private static bool Pair(double aS, double bS, double cycle) => Math.Min(aS, bS) < 2.5 * cycle && OnGrid(aS + bS, cycle, 4);
+
+    private static bool Long(BeatTrack t, int i, double cycle) => i >= 1 && i < t.Count && t.HasRr(i) && t.RrS[i] >= 3.5 * cycle;
+
+    private static bool OnGrid(double intervalS, double cycle, int fewest)
+    {
+        var m = Math.Round(intervalS / cycle);
+        return m >= fewest && Math.Abs(intervalS - m * cycle) <= Tolerance * cycle;
     }
 }

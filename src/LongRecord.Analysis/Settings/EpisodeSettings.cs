@@ -116,6 +116,12 @@ public sealed record EpisodeSettings
     /// <summary>Stretches of chaotic or flat signal on every lead closer than this are one finding, seconds. 3 s: our choice.</summary>
     public double UrgentMergeS { get; init; } = 3;
 
+    /// <summary>
+    /// A short piece of a related kind at most this far from a longer episode is part of it (Episodes/EpisodeFragments).
+    /// 5 s: our choice, with the synthetic catalogue at 24 dB visible (pieces of MAT 2.7–2.8 s from the MAT episode).
+    /// </summary>
+    public double FragmentGapS { get; init; } = 5;
+
     internal static readonly SettingField<EpisodeSettings>[] Fields =
     [
         new("tachycardiaRateBpm", s => s.TachycardiaRateBpm, (s, v) => s with { TachycardiaRateBpm = v }, 60, 250),
@@ -144,5 +150,6 @@ public sealed record EpisodeSettings
         new("symptomWindowS", s => s.SymptomWindowS, (s, v) => s with { SymptomWindowS = v }, 10, 600),
         new("lowConfidence", s => s.LowConfidence, (s, v) => s with { LowConfidence = v }, 0, 1),
         new("urgentMergeS", s => s.UrgentMergeS, (s, v) => s with { UrgentMergeS = v }, 0, 30),
+        new("fragmentGapS", s => s.FragmentGapS, (s, v) => s with { FragmentGapS = v }, 0, 60),
     ];
 }

@@ -50,7 +50,7 @@ public sealed class MitdbEpisodeTests(ITestOutputHelper output)
         Assert.True(tp >= 0.80 * n, line);
     }
 
-    [Fact(Skip = "not reached: MITDB (VT overlapped by ve-run or broad-tachycardia 57.4 % (35/61) < 90 %: beside bigeminy (200, 223) and inside AF (203) the beats stage labels fewer than three V in a row; slow-measured runs (205, 207, 214) read as idioventricular-rhythm")]
+    [Fact(Skip = "not reached: MITDB (VT overlapped by ve-run or broad-tachycardia 55.7 % (34/61) < 90 %: beside bigeminy (200, 223) and inside AF (203) the beats stage labels fewer than three V in a row; slow-measured runs (205, 223) read as idioventricular-rhythm")]
     public void Vt_OverlappedByVeRunOrBroadTachycardia_AtLeast90()
     {
         var (found, total, misses) = Overlapped(r => r.Label == "(VT", (_, e) => e.Kind is EpisodeKinds.VeRun or EpisodeKinds.BroadTachycardia);
@@ -68,7 +68,7 @@ public sealed class MitdbEpisodeTests(ITestOutputHelper output)
         Assert.Equal(total, found);
     }
 
-    [Fact(Skip = "not reached: MITDB (SVTA overlapped by sve-run, svt or atrial-tachycardia 69.2 % (18/26) < 80 %: 222 (four, inside the rhythm stage's AF), 220 (two under af-brief, one not labelled S), 201 (read as a ve-run)")]
+    [Fact(Skip = "not reached: MITDB (SVTA overlapped by sve-run, svt or atrial-tachycardia 69.2 % (18/26) < 80 %: 222 (four, inside the rhythm stage's AF), 220 (one overlapped by nothing, one read as junctional-rhythm), 209 (sinus-tachycardia), 201 (a ve-run)")]
     public void Svta_OverlappedBySveRunSvtOrAtrialTachycardia_AtLeast80()
     {
         var (found, total, misses) = Overlapped(r => r.Label == "(SVTA",

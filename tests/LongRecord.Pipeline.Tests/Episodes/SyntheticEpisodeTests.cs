@@ -28,7 +28,7 @@ public sealed class SyntheticEpisodeTests(ITestOutputHelper output)
 
     private static readonly Lazy<IReadOnlyList<(string Label, List<TruthEpisode> Truth, IReadOnlyList<Episode> Detected)>> s_runs = new(RunAll);
 
-    [Fact(Skip = "not reached at 24 dB: episode Se 100 % (13/13), kind 100 %, but +P 71.4 % (20/28) < 95 %: short false sve-run and sinus-tachycardia pieces inside MAT and focal atrial tachycardia, a 1 s ve-run in the broad-complex tachycardia (since the delineation changes)")]
+    [Fact]
     public void Catalogue_At24dB_SeAtLeast98_PPAtLeast95_KindAtLeast95()
     {
         var score = Score(24);
@@ -37,15 +37,21 @@ public sealed class SyntheticEpisodeTests(ITestOutputHelper output)
         Assert.True(score.KindAccuracy >= 0.95, score.Summary("24 dB"));
     }
 
-    [Fact(Skip = "not reached at 24 dB: onset and offset within 2 s 84.6 % (11/13; flutter with variable conduction starts 2.4 s early, sinus tachycardia with PACs ends 3.6 s early), onset type 81.8 % (9/11; flutter and MAT) < 95 %")]
-    public void Catalogue_At24dB_OnsetAndOffsetWithin2s_OnsetTypeAtLeast95()
+    [Fact]
+    public void Catalogue_At24dB_OnsetAndOffsetWithin2s()
     {
         var score = Score(24);
         Assert.True(score.TimingShare >= 1.0, score.Summary("24 dB"));
+    }
+
+    [Fact(Skip = "not reached at 24 dB: onset type 81.8 % (9/11) < 95 %: flutter with variable conduction read gradual (onset ratio 0.84; its first RR are 3:1 and 4:1, near the sinus RR before it), MAT read abrupt (ratio 0.63; the synthesiser's MAT starts at its full rate and is labelled gradual)")]
+    public void Catalogue_At24dB_OnsetTypeAtLeast95()
+    {
+        var score = Score(24);
         Assert.True(score.OnsetAccuracy >= 0.95, score.Summary("24 dB"));
     }
 
-    [Fact(Skip = "not reached at 12 and 6 dB: episode Se 15.4 % (2/13) and 0 % (0/13) < 98 %; with muscle noise over the whole recording at 12 dB and below the beats stage labels every beat Q, so no S or V run, no bigeminy and no AF from the rhythm stage")]
+    [Fact(Skip = "not reached at 12 and 6 dB: episode Se 38.5 % (5/13, +P 50.0 % 7/14) and 0 % (0/13) < 98 %; with muscle noise over the whole recording at 12 dB and below the beats stage labels beats Q, so S or V runs, bigeminy and AF from the rhythm stage are missing (at 6 dB all of them)")]
     public void Catalogue_At12And6dB_SeAtLeast98_PPAtLeast95_TimedWithin2s_KindAndOnsetTypeAtLeast95()
     {
         foreach (var snr in new double[] { 12, 6 })
