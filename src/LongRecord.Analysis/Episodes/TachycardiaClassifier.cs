@@ -19,7 +19,7 @@ internal static class TachycardiaClassifier
     {
         var e = new List<string>();
         var (width, qrsMs) = Width(f, s);
-        e.Add(width == QrsWidth.Unknown ? "width unknown" : Invariant($"QRS {qrsMs:0} ms {(width == QrsWidth.Broad ? "broad" : "narrow")} (beats {f.BeatQrsMs:0}, mean complex {f.MeanComplexQrsMs:0})"));
+        e.Add(width == QrsWidth.Unknown ? "width unknown" : Invariant($"QRS {qrsMs:0} ms {(width == QrsWidth.Broad ? "broad" : "narrow")} ({WidthSources(f)})"));
         e.Add(Invariant($"rate {f.MeanBpm:0} bpm (median {f.MedianBpm:0})"));
         var irregular = f.Regularity.SuccessiveChange > s.IrregularRrChange;
         e.Add(Invariant($"{(irregular ? "irregular" : "regular")} (RR change {f.Regularity.SuccessiveChange:0.000}, CV {f.Regularity.Cv:0.000})"));
@@ -59,6 +59,23 @@ internal static class TachycardiaClassifier
     }
 
     // The beats' own widths first; the mean complex's only when the beats carry none.
+    // Where the width came from, in words: the beats' median and the mean complex's, each only when measured.
+    private static string WidthSources(ClassifierFacts f)
+    {
+        var parts = new List<string>(2);
+        if (double.IsFinite(f.BeatQrsMs))
+        {
+            parts.Add(Invariant($"beats {f.BeatQrsMs:0}"));
+        }
+
+        if (double.IsFinite(f.MeanComplexQrsMs))
+        {
+            parts.Add(Invariant($"mean complex {f.MeanComplexQrsMs:0}"));
+        }
+
+        return string.Join(", ", parts);
+    }
+
     private static (QrsWidth, double) Width(ClassifierFacts f, EpisodeSettings s)
     {
         var ms = double.IsNaN(f.BeatQrsMs) ? f.MeanComplexQrsMs : f.BeatQrsMs;
