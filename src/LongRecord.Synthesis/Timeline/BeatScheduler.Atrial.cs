@@ -144,7 +144,9 @@ internal sealed partial class BeatScheduler
         var seg = p.Segment;
         var rate = seg.RateBpm ?? 115;
         var cv = seg.RrCv ?? 0.12;
-        var d = Open(p, RhythmNames.Name(seg.Rhythm), RhythmLabels.Svta, OnsetType.Gradual, OnsetType.Gradual);
+        // The foci take over at their full mean rate from the first beat and stop at once (no warm-up or cool-down is
+        // synthesised), so the truth says abrupt at both ends.
+        var d = Open(p, RhythmNames.Name(seg.Rhythm), RhythmLabels.Svta, OnsetType.Abrupt, OnsetType.Abrupt);
         d.Parameters["rateBpm"] = rate;
         d.Parameters["rrCv"] = cv;
 
