@@ -26,7 +26,7 @@ public static class ReportModelMapper
             Hours = r.Trend.Select(Hour).ToArray(),
             Episodes = episodes,
             EpisodeCounts = a.Episodes.CountsByKind(),
-            FlaggedEpisodeCount = Summary(a.Episodes, "episode_flagged_count"),
+            FlaggedEpisodeCount = FlaggedCount(a.Episodes),
             Symptoms = a.Episodes.SymptomEvents.Select(Symptom).ToArray(),
             Distributions = DistributionsBuilder.Build(a.Beats, a.ReferenceRateHz, a.DurationS, a.Settings.Rhythm.MaxBeatGapS),
             Thresholds = new ReportThresholds(a.Settings.Pauses.ReportS, a.Settings.Pauses.HighlightS, a.Settings.Bradycardia.RateBpm, a.Settings.Bradycardia.MinDurationS, a.Settings.Af.MinEpisodeS),
@@ -35,18 +35,24 @@ public static class ReportModelMapper
     }
 
     // The ectopic couplets and runs exactly as summary.json holds them (EC57 run classes).
-    private static IReadOnlyList<KeyValuePair<string, int>> EctopicRuns(EpisodeResult e) =>
-    [
-        new("SVE couplets", Summary(e, "sve_couplet_count")),
-        new("SVE runs of 3–5", Summary(e, "sve_run_3_5_count")),
-        new("SVE runs of ≥ 6", Summary(e, "sve_run_6_plus_count")),
-        new("VE couplets", Summary(e, "ve_couplet_count")),
-        new("VE runs of 3–5", Summary(e, "ve_run_3_5_count")),
-        new("VE runs of ≥ 6", Summary(e, "ve_run_6_plus_count")),
-    ];
+    private static IReadOnlyList<KeyValuePair<string, int>> EctopicRuns(EpisodeResult e)
+    {
+        var d = EpisodeRows.Summary(e).ToDictionary(kv => kv.Key, kv => kv.Value);
+        KeyValuePair<string, int> Row(string words, string key) => new(words, Convert.ToInt32(d[key], CultureInfo.InvariantCulture));
+        return
+        [
+            Row("SVE couplets", "sve_couplet_count"),
+            Row("SVE runs of 3–5", "sve_run_3_5_count"),
+            Row("SVE runs of ≥ 6", "sve_run_6_plus_count"),
+            Row("VE couplets", "ve_couplet_count"),
+            Row("VE runs of 3–5", "ve_run_3_5_count"),
+            Row("VE runs of ≥ 6", "ve_run_6_plus_count"),
+        ];
+    }
 
-    private static int Summary(EpisodeResult e, string key) =>
-        Convert.ToInt32(EpisodeRows.Summary(e).First(kv => kv.Key == key).Value, CultureInfo.InvariantCulture);
+    // The flagged-episode count exactly as summary.json holds it.
+    private static int FlaggedCount(EpisodeResult e) =>
+        Convert.ToInt32(EpisodeRows.Summary(e).First(kv => kv.Key == "episode_flagged_count").Value, CultureInfo.InvariantCulture);
 
     /// <summary>The figures exactly as summary.json holds them.</summary>
     public static ReportFigures Figures(RhythmResult r)

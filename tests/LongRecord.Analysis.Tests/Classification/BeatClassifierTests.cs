@@ -71,28 +71,8 @@ public sealed class BeatClassifierTests
         Assert.Equal(-1, b.Template);
     }
 
-    internal static List<ClassifiedBeat> Classify(IReadOnlyList<(double TimeS, SyntheticBeats.Kind Kind)> beats, double lengthS)
-    {
-        var leads = SyntheticBeats.Render(beats, lengthS);
-        var c = new BeatClassifier(SyntheticBeats.Fs, 2);
-        var output = new List<ClassifiedBeat>();
-        foreach (var (time, _) in beats)
-        {
-            Add(c, leads, (long)Math.Round(time * SyntheticBeats.Fs));
-            while (c.TryTake(out var b))
-            {
-                output.Add(b);
-            }
-        }
-
-        c.Flush();
-        while (c.TryTake(out var b))
-        {
-            output.Add(b);
-        }
-
-        return output;
-    }
+    internal static List<ClassifiedBeat> Classify(IReadOnlyList<(double TimeS, SyntheticBeats.Kind Kind)> beats, double lengthS) =>
+        SyntheticBeats.Classify(beats, lengthS);
 
     private static void Add(BeatClassifier c, float[][] leads, long fiducial)
     {

@@ -126,37 +126,10 @@ public sealed class SupraventricularRunTests
     private static List<ClassifiedBeat> Classify(IReadOnlyList<(double TimeS, SyntheticBeats.Kind Kind)> beats, double lengthS, double fibrillationFromS, sbyte sinusPWave, int spuriousPPercent)
     {
         var spurious = new Random(3);
-        var fs = SyntheticBeats.Fs;
-        var leads = SyntheticBeats.Render(beats, lengthS, fibrillationFromS, fibrillationFromS > 0 ? lengthS : 0);
-        var c = new BeatClassifier(fs, 2);
-        var output = new List<ClassifiedBeat>();
-        var before = (int)(0.5 * fs);
-        var after = (int)(0.7 * fs);
-        foreach (var (time, kind) in beats)
-        {
-            var fiducial = (long)Math.Round(time * fs);
-            var from = (int)Math.Max(0, fiducial - before);
-            var to = (int)Math.Min(leads[0].Length - 1, fiducial + after);
-            var length = to - from + 1;
-            var window = new float[2 * length];
-            leads[0].AsSpan(from, length).CopyTo(window);
-            leads[1].AsSpan(from, length).CopyTo(window.AsSpan(length));
-            var pWave = sinusPWave < 0 ? (sbyte)-1
+        return SyntheticBeats.Classify(beats, lengthS, (_, kind) => new BeatMeasurements(float.NaN,
+                sinusPWave < 0 ? (sbyte)-1
                 : kind != SyntheticBeats.Kind.Conducted ? sinusPWave
-                : spurious.Next(100) < spuriousPPercent ? (sbyte)1 : (sbyte)0;
-            c.Add(fiducial, window, length, (int)(fiducial - from), new BeatMeasurements(float.NaN, pWave));
-            while (c.TryTake(out var b))
-            {
-                output.Add(b);
-            }
-        }
-
-        c.Flush();
-        while (c.TryTake(out var b))
-        {
-            output.Add(b);
-        }
-
-        return output;
+                : spurious.Next(100) < spuriousPPercent ? (sbyte)1 : (sbyte)0),
+            fibrillationFromS, fibrillationFromS > 0 ? lengthS : 0);
     }
 }

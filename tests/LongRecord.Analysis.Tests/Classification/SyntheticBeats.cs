@@ -1,3 +1,5 @@
+using LongRecord.Analysis.Beats.Classification;
+
 namespace LongRecord.Analysis.Tests.Classification;
 
 /// <summary>
@@ -12,6 +14,45 @@ internal static class SyntheticBeats
     public enum Kind { Sinus, Atrial, Ventricular, Conducted, SinusBlocked, VentricularNarrow }
 
     public const double Fs = 250;
+
+    /// <summary>
+    /// Renders <paramref name="beats"/> and classifies each from its two-lead window (0.5 s before to 0.7 s after the R),
+    /// as the beats stage hands windows over, with the measurements <paramref name="measure"/> gives beat by beat
+    /// (index, kind); every beat is returned, in order.
+    /// </summary>
+    public static List<ClassifiedBeat> Classify(IReadOnlyList<(double TimeS, Kind Kind)> beats, double lengthS,
+        Func<int, Kind, BeatMeasurements>? measure = null, double fibrillationFromS = 0, double fibrillationToS = 0)
+    {
+        var leads = Render(beats, lengthS, fibrillationFromS, fibrillationToS);
+        var c = new BeatClassifier(Fs, 2);
+        var output = new List<ClassifiedBeat>();
+        var before = (int)(0.5 * Fs);
+        var after = (int)(0.7 * Fs);
+        for (var i = 0; i < beats.Count; i++)
+        {
+            var (time, kind) = beats[i];
+            var fiducial = (long)Math.Round(time * Fs);
+            var from = (int)Math.Max(0, fiducial - before);
+            var to = (int)Math.Min(leads[0].Length - 1, fiducial + after);
+            var length = to - from + 1;
+            var window = new float[2 * length];
+            leads[0].AsSpan(from, length).CopyTo(window);
+            leads[1].AsSpan(from, length).CopyTo(window.AsSpan(length));
+            c.Add(fiducial, window, length, (int)(fiducial - from), measure?.Invoke(i, kind) ?? BeatMeasurements.Unknown);
+            while (c.TryTake(out var b))
+            {
+                output.Add(b);
+            }
+        }
+
+        c.Flush();
+        while (c.TryTake(out var b))
+        {
+            output.Add(b);
+        }
+
+        return output;
+    }
 
     public static float[][] Render(IReadOnlyList<(double TimeS, Kind Kind)> beats, double lengthS, double fibrillationFromS = 0, double fibrillationToS = 0)
     {
