@@ -18,7 +18,7 @@ public static class BeatsFromAnnotations
         {
             for (var i = 0; i < given.Samples.Count; i++)
             {
-                beats.Add(Unmeasured(given.Samples[i], classes[i], BeatFlags.FromAnnotation | BeatFlags.Labelled));
+                beats.Add(Beat.Unmeasured(given.Samples[i], classes[i], BeatFlags.FromAnnotation | BeatFlags.Labelled));
             }
 
             return beats;
@@ -40,22 +40,7 @@ public static class BeatsFromAnnotations
     {
         while (rr.TryTake(out var c))
         {
-            beats.Add(Unmeasured(c.Sample, c.Class, c.Flags | BeatFlags.RrOnly | BeatFlags.FromAnnotation));
+            beats.Add(Beat.Unmeasured(c.Sample, c.Class, c.Flags | BeatFlags.RrOnly | BeatFlags.FromAnnotation));
         }
     }
-
-    private static Beat Unmeasured(long sample, BeatClass c, BeatFlags flags) => new()
-    {
-        Sample = sample,
-        QrsOnOffset = Beat.Unknown,
-        QrsOffOffset = Beat.Unknown,
-        PPeakOffset = Beat.Unknown,
-        TEndOffset = Beat.Unknown,
-        QrsMs = float.NaN,
-        Template = -1,
-        Class = c,
-        PWave = -1,
-        LeadQuality = LeadQuality.Unknown,
-        Flags = flags,
-    };
 }

@@ -39,6 +39,22 @@ public struct Beat
     public BeatFlags Flags;
 
     public readonly bool HasQrsBounds => QrsOnOffset != Unknown && QrsOffOffset != Unknown;
+
+    /// <summary>A beat known only by its position and class (from annotations, or an RR series): nothing measured.</summary>
+    public static Beat Unmeasured(long sample, BeatClass beatClass, BeatFlags flags = BeatFlags.None, sbyte pWave = -1) => new()
+    {
+        Sample = sample,
+        QrsOnOffset = Unknown,
+        QrsOffOffset = Unknown,
+        PPeakOffset = Unknown,
+        TEndOffset = Unknown,
+        QrsMs = float.NaN,
+        Template = -1,
+        Class = beatClass,
+        PWave = pWave,
+        LeadQuality = LeadQuality.Unknown,
+        Flags = flags,
+    };
 }
 
 /// <summary>Facts about how a beat's class was reached.</summary>

@@ -74,16 +74,6 @@ public sealed class BeatClassifierTests
     internal static List<ClassifiedBeat> Classify(IReadOnlyList<(double TimeS, SyntheticBeats.Kind Kind)> beats, double lengthS) =>
         SyntheticBeats.Classify(beats, lengthS);
 
-    private static void Add(BeatClassifier c, float[][] leads, long fiducial)
-    {
-        var before = (int)(0.5 * SyntheticBeats.Fs);
-        var after = (int)(0.7 * SyntheticBeats.Fs);
-        var from = (int)Math.Max(0, fiducial - before);
-        var to = (int)Math.Min(leads[0].Length - 1, fiducial + after);
-        var length = to - from + 1;
-        var window = new float[2 * length];
-        leads[0].AsSpan(from, length).CopyTo(window);
-        leads[1].AsSpan(from, length).CopyTo(window.AsSpan(length));
-        c.Add(fiducial, window, length, (int)(fiducial - from), BeatMeasurements.Unknown);
-    }
+    private static void Add(BeatClassifier c, float[][] leads, long fiducial) =>
+        SyntheticBeats.Add(c, leads, fiducial, BeatMeasurements.Unknown);
 }

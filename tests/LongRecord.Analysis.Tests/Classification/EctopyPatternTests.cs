@@ -42,14 +42,7 @@ public sealed class EctopyPatternTests
     {
         // Sinus at 800 ms conducted with a block (QRS 140 ms); beats 40 and 70 ventricular (QRS 100 ms), coupled at
         // 520 ms, followed by 1080 ms (full compensatory pause: 1.6 s). Widths as delineation would hand them over.
-        var beats = new List<(double TimeS, SyntheticBeats.Kind Kind)>();
-        var t = 1.0;
-        for (var i = 0; i < 100; i++)
-        {
-            var ventricular = i is 40 or 70;
-            beats.Add((t, ventricular ? SyntheticBeats.Kind.VentricularNarrow : SyntheticBeats.Kind.SinusBlocked));
-            t += i is 39 or 69 ? 0.52 : ventricular ? 1.08 : 0.8;
-        }
+        var (beats, t) = BlockedRhythmWithTwoVentricularBeats();
 
         var classes = Classify(beats, t + 1, k => k == SyntheticBeats.Kind.VentricularNarrow ? 100f : 140f);
 
@@ -67,6 +60,20 @@ public sealed class EctopyPatternTests
         // of them under 120 ms), as a noisy record's measured widths do: a complete block widens every conducted beat
         // to at least 120 ms (AHA/ACCF/HRS 2009, from memory), so this is no evidence of one, and a beat 25 ms
         // narrower than the normal one cannot be ventricular (textbook, from memory).
+        var (beats, t) = BlockedRhythmWithTwoVentricularBeats();
+
+        float[] spread = [112, 116, 122, 128, 134, 140];
+        var next = 0;
+        var classes = Classify(beats, t + 1, k => k == SyntheticBeats.Kind.VentricularNarrow ? 100f : spread[next++ % spread.Length]);
+
+        Assert.NotEqual(BeatClass.V, classes[40].Class);
+        Assert.NotEqual(BeatClass.V, classes[70].Class);
+    }
+
+    // Sinus at 800 ms conducted with a block; beats 40 and 70 ventricular, coupled at 520 ms and followed by 1080 ms
+    // (a full compensatory pause of 1.6 s). Returns the beats and the time after the last one.
+    private static (List<(double TimeS, SyntheticBeats.Kind Kind)> Beats, double EndS) BlockedRhythmWithTwoVentricularBeats()
+    {
         var beats = new List<(double TimeS, SyntheticBeats.Kind Kind)>();
         var t = 1.0;
         for (var i = 0; i < 100; i++)
@@ -76,12 +83,7 @@ public sealed class EctopyPatternTests
             t += i is 39 or 69 ? 0.52 : ventricular ? 1.08 : 0.8;
         }
 
-        float[] spread = [112, 116, 122, 128, 134, 140];
-        var next = 0;
-        var classes = Classify(beats, t + 1, k => k == SyntheticBeats.Kind.VentricularNarrow ? 100f : spread[next++ % spread.Length]);
-
-        Assert.NotEqual(BeatClass.V, classes[40].Class);
-        Assert.NotEqual(BeatClass.V, classes[70].Class);
+        return (beats, t);
     }
 
     // The widths delineation would hand over, by kind; no P-wave judgement.

@@ -26,19 +26,10 @@ internal static class SyntheticBeats
         var leads = Render(beats, lengthS, fibrillationFromS, fibrillationToS);
         var c = new BeatClassifier(Fs, 2);
         var output = new List<ClassifiedBeat>();
-        var before = (int)(0.5 * Fs);
-        var after = (int)(0.7 * Fs);
         for (var i = 0; i < beats.Count; i++)
         {
             var (time, kind) = beats[i];
-            var fiducial = (long)Math.Round(time * Fs);
-            var from = (int)Math.Max(0, fiducial - before);
-            var to = (int)Math.Min(leads[0].Length - 1, fiducial + after);
-            var length = to - from + 1;
-            var window = new float[2 * length];
-            leads[0].AsSpan(from, length).CopyTo(window);
-            leads[1].AsSpan(from, length).CopyTo(window.AsSpan(length));
-            c.Add(fiducial, window, length, (int)(fiducial - from), measure?.Invoke(i, kind) ?? BeatMeasurements.Unknown);
+            Add(c, leads, (long)Math.Round(time * Fs), measure?.Invoke(i, kind) ?? BeatMeasurements.Unknown);
             while (c.TryTake(out var b))
             {
                 output.Add(b);
@@ -52,6 +43,20 @@ internal static class SyntheticBeats
         }
 
         return output;
+    }
+
+    /// <summary>Hands the classifier the beat at <paramref name="fiducial"/>: its two-lead window, 0.5 s before to 0.7 s after.</summary>
+    public static void Add(BeatClassifier c, float[][] leads, long fiducial, BeatMeasurements measurements)
+    {
+        var before = (int)(0.5 * Fs);
+        var after = (int)(0.7 * Fs);
+        var from = (int)Math.Max(0, fiducial - before);
+        var to = (int)Math.Min(leads[0].Length - 1, fiducial + after);
+        var length = to - from + 1;
+        var window = new float[2 * length];
+        leads[0].AsSpan(from, length).CopyTo(window);
+        leads[1].AsSpan(from, length).CopyTo(window.AsSpan(length));
+        c.Add(fiducial, window, length, (int)(fiducial - from), measurements);
     }
 
     public static float[][] Render(IReadOnlyList<(double TimeS, Kind Kind)> beats, double lengthS, double fibrillationFromS = 0, double fibrillationToS = 0)

@@ -21,18 +21,7 @@ internal static class EpisodeTrack
                 t += rrS[i - 1];
             }
 
-            beats[i] = new Beat
-            {
-                Sample = (long)Math.Round(t * RateHz),
-                Class = classOf?.Invoke(i) ?? BeatClass.N,
-                QrsMs = float.NaN,
-                Template = -1,
-                PWave = -1,
-                QrsOnOffset = Beat.Unknown,
-                QrsOffOffset = Beat.Unknown,
-                PPeakOffset = Beat.Unknown,
-                TEndOffset = Beat.Unknown,
-            };
+            beats[i] = Beat.Unmeasured((long)Math.Round(t * RateHz), classOf?.Invoke(i) ?? BeatClass.N);
         }
 
         return new BeatTrack(beats, RateHz, [], maxBeatGapS: 10);

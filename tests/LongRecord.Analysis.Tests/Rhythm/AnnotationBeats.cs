@@ -21,19 +21,7 @@ public static class AnnotationBeats
                 continue;
             }
 
-            list.Add(new Beat
-            {
-                Sample = a.Sample,
-                QrsOnOffset = Beat.Unknown,
-                QrsOffOffset = Beat.Unknown,
-                PPeakOffset = Beat.Unknown,
-                TEndOffset = Beat.Unknown,
-                QrsMs = float.NaN,
-                Template = -1,
-                Class = labelled ? ClassOf(a.Mnemonic[0]) : BeatClass.N,
-                PWave = -1,
-                Flags = BeatFlags.FromAnnotation | (labelled ? BeatFlags.None : BeatFlags.RrOnly),
-            });
+            list.Add(Beat.Unmeasured(a.Sample, labelled ? ClassOf(a.Mnemonic[0]) : BeatClass.N, BeatFlags.FromAnnotation | (labelled ? BeatFlags.None : BeatFlags.RrOnly)));
         }
 
         return [.. list];

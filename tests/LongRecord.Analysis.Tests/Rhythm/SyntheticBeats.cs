@@ -17,18 +17,7 @@ public static class SyntheticBeats
                 t += rrS[i - 1];
             }
 
-            beats[i] = new Beat
-            {
-                Sample = (long)Math.Round(t * 1000),
-                QrsOnOffset = Beat.Unknown,
-                QrsOffOffset = Beat.Unknown,
-                PPeakOffset = Beat.Unknown,
-                TEndOffset = Beat.Unknown,
-                QrsMs = float.NaN,
-                Template = -1,
-                Class = classes?[i] ?? BeatClass.N,
-                PWave = pWave,
-            };
+            beats[i] = Beat.Unmeasured((long)Math.Round(t * 1000), classes?[i] ?? BeatClass.N, pWave: pWave);
         }
 
         return beats;

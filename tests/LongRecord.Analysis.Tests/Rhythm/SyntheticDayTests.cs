@@ -26,19 +26,10 @@ public sealed class SyntheticDayTests(ITestOutputHelper output)
         var i = 0;
         foreach (var b in truth.Beats)
         {
-            beats[i++] = new Beat
-            {
-                Sample = b.RSample,
-                QrsOnOffset = Beat.Unknown,
-                QrsOffOffset = Beat.Unknown,
-                PPeakOffset = Beat.Unknown,
-                TEndOffset = Beat.Unknown,
-                QrsMs = float.NaN,
-                Template = -1,
-                Class = b.Class switch { Synthesis.Truth.BeatClass.S => BeatClass.S, Synthesis.Truth.BeatClass.V => BeatClass.V, _ => BeatClass.N },
-                // With P waves: a P before the QRS (sinus or ectopic) counts as present, none as absent.
-                PWave = !withPWaves ? (sbyte)-1 : b.PWave is Synthesis.Truth.PWaveKind.Sinus or Synthesis.Truth.PWaveKind.Ectopic ? (sbyte)1 : (sbyte)0,
-            };
+            // With P waves: a P before the QRS (sinus or ectopic) counts as present, none as absent.
+            var beatClass = b.Class switch { Synthesis.Truth.BeatClass.S => BeatClass.S, Synthesis.Truth.BeatClass.V => BeatClass.V, _ => BeatClass.N };
+            var pWave = !withPWaves ? (sbyte)-1 : b.PWave is Synthesis.Truth.PWaveKind.Sinus or Synthesis.Truth.PWaveKind.Ectopic ? (sbyte)1 : (sbyte)0;
+            beats[i++] = Beat.Unmeasured(b.RSample, beatClass, pWave: pWave);
         }
 
         var result = RhythmAnalyser.Analyse(new RhythmInput
