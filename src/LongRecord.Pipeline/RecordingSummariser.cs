@@ -96,7 +96,7 @@ public static class RecordingSummariser
     {
         var channels = EcgChannelSelector.Select(reader.Info);
         var given = options.Beats is string spec ? ExternalBeats.Load(spec, reader.Info.FilePath, channels.ReferenceRateHz) : null;
-        var analyser = DetectBeats(reader, channels, options.BlockSamples, cancellation, given);
+        var analyser = DetectBeats(reader, channels, options.BlockSamples, cancellation, given, options.SecondBeatsThread);
         var labels = channels.Indices.Select(i => reader.Info.Channels[i].Label).ToArray();
         return new BeatsResult(analyser.Beats, analyser.Quality, channels.ReferenceRateHz, reader.Info.DurationS, labels, given?.Source ?? "detected") { Timings = analyser.Timings };
     }
@@ -121,20 +121,28 @@ public static class RecordingSummariser
     }
 
     /// <summary>Streams the chosen channels through the beats stage.</summary>
-    public static BeatAnalyser DetectBeats(IRecordingReader reader, EcgChannels channels, int blockSamples, CancellationToken cancellation = default, ExternalBeats? given = null)
+    public static BeatAnalyser DetectBeats(IRecordingReader reader, EcgChannels channels, int blockSamples, CancellationToken cancellation = default, ExternalBeats? given = null, bool secondThread = false)
     {
-        var analyser = new BeatAnalyser(channels.ReferenceRateHz, channels.Indices.Length, given?.Samples, given?.Classes, SaturationRails.For(reader.Info, channels));
-        var buffer = new float[channels.Indices.Length * blockSamples];
-        for (long start = 0; start < channels.SampleCount; start += blockSamples)
+        var analyser = new BeatAnalyser(channels.ReferenceRateHz, channels.Indices.Length, given?.Samples, given?.Classes, SaturationRails.For(reader.Info, channels), secondThread);
+        try
         {
-            cancellation.ThrowIfCancellationRequested();
-            var count = (int)Math.Min(blockSamples, channels.SampleCount - start);
-            var block = buffer.AsSpan(0, channels.Indices.Length * count);
-            reader.Read(channels.Indices, start, count, block);
-            analyser.Process(block, count);
+            var buffer = new float[channels.Indices.Length * blockSamples];
+            for (long start = 0; start < channels.SampleCount; start += blockSamples)
+            {
+                cancellation.ThrowIfCancellationRequested();
+                var count = (int)Math.Min(blockSamples, channels.SampleCount - start);
+                var block = buffer.AsSpan(0, channels.Indices.Length * count);
+                reader.Read(channels.Indices, start, count, block);
+                analyser.Process(block, count);
+            }
+
+            analyser.Complete();
+        }
+        finally
+        {
+            analyser.Dispose();
         }
 
-        analyser.Complete();
         return analyser;
     }
 

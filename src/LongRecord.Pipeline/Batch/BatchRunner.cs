@@ -23,6 +23,8 @@ public static class BatchRunner
         var mine = options.Shard.Select(candidates);
         progress?.Planned(candidates.Length, mine.Count, options.Shard);
 
+        // A recording's beats stage takes a second thread only when the batch leaves a core free for it.
+        options = options with { Summary = options.Summary with { SecondBeatsThread = Math.Min(options.Jobs, mine.Count) < Environment.ProcessorCount } };
         var listings = new ConcurrentDictionary<string, string[]>(StringComparer.Ordinal);
         var runOptions = new RunOptions(options, folder => listings.GetOrAdd(folder, Directory.GetFiles));
         var entries = new BatchEntry[mine.Count];
