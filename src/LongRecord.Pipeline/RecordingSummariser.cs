@@ -28,15 +28,26 @@ public static class RecordingSummariser
         }
 
         using var folder = new OutputFolder(Path.Combine(outputRoot, input.OutputName));
-        BeatsCsv.Write(folder.File("beats.csv"), a.Beats, a.ReferenceRateHz);
-        BeatAnnotations.Write(folder.File($"{input.Name}.{BeatAnnotations.Annotator}"), a.Beats);
-        QualityCsv.Write(folder.File("quality.csv"), a.Quality);
-        CsvTable.Write(folder.File("hourly.csv"), RhythmRows.TrendColumns, RhythmRows.Trend(a.Rhythm));
-        CsvTable.Write(folder.File("episodes.csv"), EpisodeRows.Columns, EpisodeRows.Rows(a.Episodes));
         var description = new RecordingDescription(input.Name, a.Info.FormatDetail, a.Info.StartDateTime, a.DurationS, a.ReferenceRateHz,
             a.LeadLabels, a.BeatSource, a.Info.HasSignal);
-        SummaryJson.Write(folder.File("summary.json"), description, a.Rhythm, a.Settings, a.Episodes);
-        Report.ReportOutputs.Write(folder, input, a, options.Report);
+
+        // The files are independent of one another: the per-beat files, the small tables, and the report (the longest)
+        // are written side by side. Any failure still fails the whole folder, which is then never committed.
+        SideBySide(
+            cancellation,
+            () =>
+            {
+                BeatsCsv.Write(folder.File("beats.csv"), a.Beats, a.ReferenceRateHz);
+                BeatAnnotations.Write(folder.File($"{input.Name}.{BeatAnnotations.Annotator}"), a.Beats);
+            },
+            () =>
+            {
+                QualityCsv.Write(folder.File("quality.csv"), a.Quality);
+                CsvTable.Write(folder.File("hourly.csv"), RhythmRows.TrendColumns, RhythmRows.Trend(a.Rhythm));
+                CsvTable.Write(folder.File("episodes.csv"), EpisodeRows.Columns, EpisodeRows.Rows(a.Episodes));
+                SummaryJson.Write(folder.File("summary.json"), description, a.Rhythm, a.Settings, a.Episodes);
+            },
+            () => Report.ReportOutputs.Write(folder, input, a, options.Report));
         observer?.Mark("report");
         observer?.Committing(folder.WorkPath);
         folder.Commit();
@@ -45,6 +56,19 @@ public static class RecordingSummariser
         {
             Rhythm = a.Rhythm,
         };
+    }
+
+    // Runs the writers in parallel; a failure surfaces as the writer's own exception (its one-line message), not wrapped.
+    private static void SideBySide(CancellationToken cancellation, params Action[] writers)
+    {
+        try
+        {
+            Parallel.Invoke(new ParallelOptions { CancellationToken = cancellation }, writers);
+        }
+        catch (AggregateException e) when (e.InnerExceptions.Count > 0)
+        {
+            System.Runtime.ExceptionServices.ExceptionDispatchInfo.Capture(e.InnerExceptions[0]).Throw();
+        }
     }
 
     /// <summary>Reads and analyses one recording (beats, quality, rhythm, episodes) without writing anything.</summary>
