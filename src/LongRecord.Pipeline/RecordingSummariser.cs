@@ -28,15 +28,26 @@ public static class RecordingSummariser
         }
 
         using var folder = new OutputFolder(Path.Combine(outputRoot, input.OutputName));
-        BeatsCsv.Write(folder.File("beats.csv"), a.Beats, a.ReferenceRateHz);
-        BeatAnnotations.Write(folder.File($"{input.Name}.{BeatAnnotations.Annotator}"), a.Beats);
-        QualityCsv.Write(folder.File("quality.csv"), a.Quality);
-        CsvTable.Write(folder.File("hourly.csv"), RhythmRows.TrendColumns, RhythmRows.Trend(a.Rhythm));
-        CsvTable.Write(folder.File("episodes.csv"), EpisodeRows.Columns, EpisodeRows.Rows(a.Episodes));
         var description = new RecordingDescription(input.Name, a.Info.FormatDetail, a.Info.StartDateTime, a.DurationS, a.ReferenceRateHz,
             a.LeadLabels, a.BeatSource, a.Info.HasSignal);
-        SummaryJson.Write(folder.File("summary.json"), description, a.Rhythm, a.Settings, a.Episodes);
-        Report.ReportOutputs.Write(folder, input, a, options.Report);
+
+        // The files are independent of one another: the per-beat files, the small tables, and the report (the longest)
+        // are written side by side. Any failure still fails the whole folder, which is then never committed.
+        SideBySide(
+            cancellation,
+            () =>
+            {
+                BeatsCsv.Write(folder.File("beats.csv"), a.Beats, a.ReferenceRateHz);
+                BeatAnnotations.Write(folder.File($"{input.Name}.{BeatAnnotations.Annotator}"), a.Beats);
+            },
+            () =>
+            {
+                QualityCsv.Write(folder.File("quality.csv"), a.Quality);
+                CsvTable.Write(folder.File("hourly.csv"), RhythmRows.TrendColumns, RhythmRows.Trend(a.Rhythm));
+                CsvTable.Write(folder.File("episodes.csv"), EpisodeRows.Columns, EpisodeRows.Rows(a.Episodes));
+                SummaryJson.Write(folder.File("summary.json"), description, a.Rhythm, a.Settings, a.Episodes);
+            },
+            () => Report.ReportOutputs.Write(folder, input, a, options.Report));
         observer?.Mark("report");
         observer?.Committing(folder.WorkPath);
         folder.Commit();
@@ -45,6 +56,19 @@ public static class RecordingSummariser
         {
             Rhythm = a.Rhythm,
         };
+    }
+
+    // Runs the writers in parallel; a failure surfaces as the writer's own exception (its one-line message), not wrapped.
+    private static void SideBySide(CancellationToken cancellation, params Action[] writers)
+    {
+        try
+        {
+            Parallel.Invoke(new ParallelOptions { CancellationToken = cancellation }, writers);
+        }
+        catch (AggregateException e) when (e.InnerExceptions.Count > 0)
+        {
+            System.Runtime.ExceptionServices.ExceptionDispatchInfo.Capture(e.InnerExceptions[0]).Throw();
+        }
     }
 
     /// <summary>Reads and analyses one recording (beats, quality, rhythm, episodes) without writing anything.</summary>
@@ -96,7 +120,7 @@ public static class RecordingSummariser
     {
         var channels = EcgChannelSelector.Select(reader.Info);
         var given = options.Beats is string spec ? ExternalBeats.Load(spec, reader.Info.FilePath, channels.ReferenceRateHz) : null;
-        var analyser = DetectBeats(reader, channels, options.BlockSamples, cancellation, given);
+        var analyser = DetectBeats(reader, channels, options.BlockSamples, cancellation, given, options.SecondBeatsThread);
         var labels = channels.Indices.Select(i => reader.Info.Channels[i].Label).ToArray();
         return new BeatsResult(analyser.Beats, analyser.Quality, channels.ReferenceRateHz, reader.Info.DurationS, labels, given?.Source ?? "detected") { Timings = analyser.Timings };
     }
@@ -121,20 +145,28 @@ public static class RecordingSummariser
     }
 
     /// <summary>Streams the chosen channels through the beats stage.</summary>
-    public static BeatAnalyser DetectBeats(IRecordingReader reader, EcgChannels channels, int blockSamples, CancellationToken cancellation = default, ExternalBeats? given = null)
+    public static BeatAnalyser DetectBeats(IRecordingReader reader, EcgChannels channels, int blockSamples, CancellationToken cancellation = default, ExternalBeats? given = null, bool secondThread = false)
     {
-        var analyser = new BeatAnalyser(channels.ReferenceRateHz, channels.Indices.Length, given?.Samples, given?.Classes, SaturationRails.For(reader.Info, channels));
-        var buffer = new float[channels.Indices.Length * blockSamples];
-        for (long start = 0; start < channels.SampleCount; start += blockSamples)
+        var analyser = new BeatAnalyser(channels.ReferenceRateHz, channels.Indices.Length, given?.Samples, given?.Classes, SaturationRails.For(reader.Info, channels), secondThread);
+        try
         {
-            cancellation.ThrowIfCancellationRequested();
-            var count = (int)Math.Min(blockSamples, channels.SampleCount - start);
-            var block = buffer.AsSpan(0, channels.Indices.Length * count);
-            reader.Read(channels.Indices, start, count, block);
-            analyser.Process(block, count);
+            var buffer = new float[channels.Indices.Length * blockSamples];
+            for (long start = 0; start < channels.SampleCount; start += blockSamples)
+            {
+                cancellation.ThrowIfCancellationRequested();
+                var count = (int)Math.Min(blockSamples, channels.SampleCount - start);
+                var block = buffer.AsSpan(0, channels.Indices.Length * count);
+                reader.Read(channels.Indices, start, count, block);
+                analyser.Process(block, count);
+            }
+
+            analyser.Complete();
+        }
+        finally
+        {
+            analyser.Dispose();
         }
 
-        analyser.Complete();
         return analyser;
     }
 

@@ -7,6 +7,13 @@ public sealed record SummaryOptions
     public int BlockSamples { get; init; } = 1 << 16;
 
     /// <summary>
+    /// Run the beats stage's delineation and classification on a second thread, overlapping conditioning, quality and
+    /// detection (results do not depend on it). Worth it when a core would otherwise stand idle: one recording at a
+    /// time on a machine with two or more.
+    /// </summary>
+    public bool SecondBeatsThread { get; init; } = Environment.ProcessorCount > 1;
+
+    /// <summary>
     /// Re-analysis: take beats from this annotator extension beside the record (<c>qrs</c>, <c>atr</c>, <c>ecg</c>) or
     /// this file (WFDB annotations or a CSV of R times) instead of detecting them; null detects.
     /// </summary>

@@ -12,7 +12,7 @@ namespace LongRecord.Analysis.Beats;
 /// analysable signal. Pure computation: the caller reads the file and hands over blocks (lead-major, mV).
 /// Any block size gives the same beats.
 /// </summary>
-public sealed class BeatAnalyser
+public sealed class BeatAnalyser : IDisposable
 {
     private readonly double _fs;
     private readonly int _leads;
@@ -24,11 +24,10 @@ public sealed class BeatAnalyser
     private readonly List<long> _detections = new();
     private readonly Queue<long> _waiting = new();
     private readonly Queue<BeatClass> _waitingClasses = new();
-    private long _lastSample = -1;
     private readonly List<Beat> _beats = new();
-    private readonly BeatClassifier _classifier;
-    private readonly BeatDelineator _delineator;
-    private readonly Queue<Beat> _undecided = new();
+    private readonly BeatFinisher _finisher;
+    private readonly BeatFinishingThread? _thread;
+    private readonly Action<Beat> _takeDecided;
     private readonly SignalQualityMonitor _quality;
     private readonly Queue<Beat> _awaitingQuality = new();
     private long _droppedUnanalysable;
@@ -49,7 +48,11 @@ public sealed class BeatAnalyser
     /// </param>
     /// <param name="givenClasses">The annotation file's reviewed classes for <paramref name="givenBeats"/>, kept as they are; null classifies.</param>
     /// <param name="quality">Signal-quality settings, with the leads' saturation rails when the format knows them.</param>
-    public BeatAnalyser(double samplingRateHz, int leads, IReadOnlyList<long>? givenBeats = null, IReadOnlyList<BeatClass>? givenClasses = null, QualitySettings? quality = null)
+    /// <param name="finishOnSecondThread">
+    /// Delineate and classify on a thread of its own, overlapping conditioning, quality and detection (for one
+    /// recording on a machine with a core to spare). The beats are the same either way.
+    /// </param>
+    public BeatAnalyser(double samplingRateHz, int leads, IReadOnlyList<long>? givenBeats = null, IReadOnlyList<BeatClass>? givenClasses = null, QualitySettings? quality = null, bool finishOnSecondThread = false)
     {
         _quality = new SignalQualityMonitor(samplingRateHz, leads, quality);
         _given = givenBeats;
@@ -59,8 +62,8 @@ public sealed class BeatAnalyser
         _conditioner = new LeadSetConditioner(samplingRateHz, leads);
 
         _detector = new QrsDetector(samplingRateHz, leads);
-        _classifier = new BeatClassifier(samplingRateHz, leads);
-        _delineator = new BeatDelineator(samplingRateHz, leads);
+        _finisher = new BeatFinisher(samplingRateHz, leads, givenBeats is not null, Timings);
+        _takeDecided = _awaitingQuality.Enqueue;
         _pre = (int)Math.Round(BeatWindow.PreS * samplingRateHz);
         _post = (int)Math.Round(BeatWindow.PostS * samplingRateHz);
         _ring = new SignalRing(leads, (int)Math.Ceiling(BeatWindow.RingS * samplingRateHz));
@@ -68,6 +71,11 @@ public sealed class BeatAnalyser
         _step = Math.Max(1, (int)Math.Round(samplingRateHz));
         _work = new float[leads * _step];
         _rawWork = new float[leads * _step];
+        if (finishOnSecondThread)
+        {
+            _thread = new BeatFinishingThread(_finisher, _window.Length);
+            Timings.TwoThreads = true;
+        }
     }
 
     /// <summary>Beats decided so far, in time order; only beats in analysable signal.</summary>
@@ -83,6 +91,9 @@ public sealed class BeatAnalyser
     public long DroppedUnanalysable => _droppedUnanalysable;
 
     public double SamplingRateHz => _fs;
+
+    /// <summary>The second thread, when there is one (for tests).</summary>
+    internal BeatFinishingThread? SecondThread => _thread;
 
     /// <summary>Feeds <paramref name="count"/> samples of every lead, lead-major (lead k at k × count), in mV.</summary>
     public void Process(ReadOnlySpan<float> raw, int count)
@@ -168,8 +179,15 @@ public sealed class BeatAnalyser
 
         _detections.Clear();
         DrainReady(final: true);
-        _classifier.Flush();
-        TakeClassified();
+        if (_thread is null)
+        {
+            _finisher.Flush(_takeDecided);
+        }
+        else
+        {
+            _thread.Complete(_awaitingQuality);
+        }
+
         _quality.Flush();
         ReleaseJudged(final: true);
     }
@@ -179,86 +197,29 @@ public sealed class BeatAnalyser
         while (_waiting.Count > 0 && (final || _waiting.Peek() + _post < _ring.End))
         {
             var fiducial = _waiting.Dequeue();
-            var (first, length) = _ring.CopyWindow(fiducial - _pre, _pre + _post + 1, _window);
-            var window = _window.AsSpan(0, _leads * length);
-            var at = (int)(fiducial - first);
+            var window = _thread is null ? _window : _thread.NextWindow();
+            var (first, length) = _ring.CopyWindow(fiducial - _pre, _pre + _post + 1, window);
             int? previous = _previousFiducial >= first ? (int)(_previousFiducial - first) : null;
             int? next = _waiting.Count > 0 && _waiting.Peek() < first + length ? (int)(_waiting.Peek() - first) : null;
-            var t0 = Stopwatch.GetTimestamp();
-            var d = _delineator.Delineate(window, length, at, new DelineationContext(previous, next, 0));
-            var t1 = Stopwatch.GetTimestamp();
-            Timings.Delineation += t1 - t0;
+            BeatClass? given = _givenClasses is not null ? _waitingClasses.Dequeue() : null;
+            var job = new BeatJob(first, length, (int)(fiducial - first), previous, next, given);
             _previousFiducial = fiducial;
-
-            // The beat's point in time is the dominant deflection of its QRS where delineation found one (given beats
-            // keep the time the annotation file gives).
-            var r = d.RPeak >= 0 && _given is null && first + d.RPeak > _lastSample ? d.RPeak : at;
-            if (first + r <= _lastSample)
+            if (_thread is null)
             {
-                // Two detections that delineation places on one complex: the second is not a beat.
-                if (_givenClasses is not null)
-                {
-                    _waitingClasses.Dequeue();
-                }
-
-                continue;
+                _finisher.Finish(job, window, _takeDecided);
             }
-
-            _lastSample = first + r;
-            var beat = new Beat
+            else
             {
-                Sample = first + r,
-                QrsOnOffset = Offset(d.QrsOnset, r),
-                QrsOffOffset = Offset(d.QrsOffset, r),
-                PPeakOffset = Offset(d.PPeak, r),
-                TEndOffset = Offset(d.TEnd, r),
-                QrsMs = d.HasQrsBounds ? d.QrsMs : float.NaN,
-                Template = -1,
-                Class = BeatClass.Q,
-                PWave = d.PWave,
-                LeadQuality = LeadQuality.Good,
-                Flags = _given is null ? BeatFlags.None : BeatFlags.FromAnnotation,
-            };
-            if (_givenClasses is not null)
-            {
-                // Reviewed labels are kept; the classifier still sees the beat for its templates and rhythm.
-                beat.Class = _waitingClasses.Dequeue();
-                beat.Flags |= BeatFlags.Labelled;
+                _thread.Submit(job);
             }
-
-            _classifier.Add(beat.Sample, window, length, r, new BeatMeasurements(beat.QrsMs, beat.PWave));
-            Timings.Classification += Stopwatch.GetTimestamp() - t1;
-            _undecided.Enqueue(beat);
-            TakeClassified();
-        }
-    }
-
-    private static short Offset(int index, int reference) => index < 0 ? Beat.Unknown : (short)Math.Clamp(index - reference, short.MinValue + 1, short.MaxValue);
-
-    // The classifier decides a beat once the next one is known; pair its answers with the beats waiting for them.
-    private void TakeClassified()
-    {
-        while (_classifier.TryTake(out var c))
-        {
-            var beat = _undecided.Dequeue();
-            if (beat.Sample != c.Sample)
-            {
-                throw new InvalidOperationException($"classifier answered for sample {c.Sample}, expected {beat.Sample}");
-            }
-
-            if ((beat.Flags & BeatFlags.Labelled) == 0)
-            {
-                beat.Class = c.Class;
-                beat.Flags |= c.Flags;
-            }
-
-            beat.Template = c.Template;
-
-            _awaitingQuality.Enqueue(beat);
         }
 
+        _thread?.TakeDone(_awaitingQuality);
         ReleaseJudged(final: false);
     }
+
+    /// <summary>Stops the second thread, if there is one, when the stream is abandoned before <see cref="Complete"/>.</summary>
+    public void Dispose() => _thread?.Dispose();
 
     // A beat is kept once the quality of its second is decided, and only if that second is analysable:
     // every row of beats.csv is a detection in signal that could be read.

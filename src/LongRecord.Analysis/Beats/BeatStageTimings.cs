@@ -11,6 +11,9 @@ public sealed class BeatStageTimings
     public long Delineation { get; set; }
     public long Classification { get; set; }
 
+    /// <summary>True when delineation and classification ran on a second thread, overlapping the other parts.</summary>
+    public bool TwoThreads { get; set; }
+
     public static double Seconds(long ticks) => (double)ticks / Stopwatch.Frequency;
 
     public override string ToString() => FormattableString.Invariant(

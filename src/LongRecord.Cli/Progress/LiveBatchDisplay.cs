@@ -103,9 +103,16 @@ public sealed class LiveBatchDisplay(IAnsiConsole console, TextWriter stderr, Pr
         if (settings.Timings)
         {
             var table = new Table().AddColumn("stage").AddColumn(new TableColumn("seconds").RightAligned());
-            foreach (var (stage, s) in result.TotalTimings().Stages)
+            var timings = result.TotalTimings();
+            foreach (var (stage, s) in timings.Stages)
             {
                 table.AddRow(Markup.Escape(stage), s.ToString("F2", System.Globalization.CultureInfo.InvariantCulture));
+            }
+
+            // Parts of a beats stage that ran on two threads: thread time, overlapping, outside the sum above.
+            foreach (var (stage, s) in timings.OverlappedParts)
+            {
+                table.AddRow(Markup.Escape("  beats: " + stage + " (thread time)"), s.ToString("F2", System.Globalization.CultureInfo.InvariantCulture));
             }
 
             console.Write(table);

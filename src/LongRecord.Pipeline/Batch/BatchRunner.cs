@@ -23,6 +23,8 @@ public static class BatchRunner
         var mine = options.Shard.Select(candidates);
         progress?.Planned(candidates.Length, mine.Count, options.Shard);
 
+        // A recording's beats stage takes a second thread only when the batch leaves a core free for it.
+        options = options with { Summary = options.Summary with { SecondBeatsThread = Math.Min(options.Jobs, mine.Count) < Environment.ProcessorCount } };
         var listings = new ConcurrentDictionary<string, string[]>(StringComparer.Ordinal);
         var runOptions = new RunOptions(options, folder => listings.GetOrAdd(folder, Directory.GetFiles));
         var entries = new BatchEntry[mine.Count];
@@ -65,17 +67,29 @@ public static class BatchRunner
                 opened = reader.Info.FilePath;
             }
 
-            var fingerprint = RecordingFingerprint.Compute(input with { Path = opened }, options.Summary, listFolder: run.ListFolder);
             var final = Path.Combine(outputRoot, input.OutputName);
-            var why = fingerprint.DifferenceFrom(Directory.Exists(final) ? RecordingFingerprint.Read(final) : null);
-            if (why is null && !options.Force)
+            var earlier = Directory.Exists(final) ? RecordingFingerprint.Read(final) : null;
+            Func<RecordingFingerprint> compute = () => RecordingFingerprint.Compute(input with { Path = opened }, options.Summary, listFolder: run.ListFolder);
+            Task<RecordingFingerprint> fingerprint;
+            string? why;
+            if (earlier is null || options.Force)
             {
-                return new BatchEntry(input, BatchStatus.Unchanged, "fingerprint matches") { ElapsedS = clock.Elapsed.TotalSeconds };
+                // It will be analysed whatever the fingerprint says: hash the inputs beside the analysis, not before it.
+                fingerprint = Task.Run(compute, cancellation);
+                why = earlier is null ? "no earlier result" : "--force";
+            }
+            else
+            {
+                fingerprint = Task.FromResult(compute());
+                why = fingerprint.Result.DifferenceFrom(earlier);
+                if (why is null)
+                {
+                    return new BatchEntry(input, BatchStatus.Unchanged, "fingerprint matches") { ElapsedS = clock.Elapsed.TotalSeconds };
+                }
             }
 
-            why ??= "--force";
             progress?.Started(input, why);
-            var observer = new SummaryObserver { BeforeCommit = fingerprint.Write };
+            var observer = new SummaryObserver { BeforeCommit = work => fingerprint.GetAwaiter().GetResult().Write(work) };
             observer.Start();
             var summary = RecordingSummariser.Summarise(input, outputRoot, options.Summary, cancellation, observer);
             return new BatchEntry(input, BatchStatus.Done, why) { Summary = summary, Timings = observer.Timings, ElapsedS = clock.Elapsed.TotalSeconds };

@@ -20,8 +20,9 @@ public sealed class RecordingFingerprint
 {
     public const string FileName = "fingerprint.json";
 
-    // Options proven not to change any output: the read block size (BlockSizeInvarianceTests).
-    private static readonly string[] s_notOutputAffecting = [nameof(SummaryOptions.BlockSamples)];
+    // Options proven not to change any output: the read block size (BlockSizeInvarianceTests) and the beats stage's
+    // second thread (SecondBeatsThreadTests).
+    private static readonly string[] s_notOutputAffecting = [nameof(SummaryOptions.BlockSamples), nameof(SummaryOptions.SecondBeatsThread)];
 
     private static readonly JsonSerializerOptions s_json = new() { Converters = { new FileSystemPathConverter() } };
 

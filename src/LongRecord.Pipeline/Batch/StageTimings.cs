@@ -8,25 +8,33 @@ namespace LongRecord.Pipeline.Batch;
 /// <summary>
 /// Wall time per stage of one recording's summary: reading (decode and everything of the beats pass that is not one of
 /// its parts), the beats stage's parts (<see cref="BeatStageTimings"/>), the stages after it, and writing the outputs.
+/// When the beats stage ran on two threads its parts overlap: the pass is one stage, <c>beats</c>, of wall time, and
+/// its parts are listed apart as thread time (<see cref="OverlappedParts"/>), outside the total.
 /// </summary>
 public sealed class StageTimings
 {
     private readonly List<(string Stage, double Seconds)> _stages = [];
+    private readonly List<(string Stage, double Seconds)> _overlapped = [];
 
     public IReadOnlyList<(string Stage, double Seconds)> Stages => _stages;
 
+    /// <summary>Thread time of the beats stage's parts when they ran side by side (not part of <see cref="TotalS"/>).</summary>
+    public IReadOnlyList<(string Stage, double Seconds)> OverlappedParts => _overlapped;
+
     public double TotalS => _stages.Sum(s => s.Seconds);
 
-    public void Add(string stage, double seconds)
+    public void Add(string stage, double seconds) => Add(_stages, stage, seconds);
+
+    private static void Add(List<(string Stage, double Seconds)> list, string stage, double seconds)
     {
-        var i = _stages.FindIndex(s => s.Stage == stage);
+        var i = list.FindIndex(s => s.Stage == stage);
         if (i < 0)
         {
-            _stages.Add((stage, seconds));
+            list.Add((stage, seconds));
         }
         else
         {
-            _stages[i] = (stage, _stages[i].Seconds + seconds);
+            list[i] = (stage, list[i].Seconds + seconds);
         }
     }
 
@@ -38,6 +46,17 @@ public sealed class StageTimings
             ("conditioning", parts.Conditioning), ("quality", parts.Quality), ("detection", parts.Detection),
             ("delineation", parts.Delineation), ("classification", parts.Classification),
         };
+        if (parts.TwoThreads)
+        {
+            Add("beats", passS);
+            foreach (var (stage, ticks) in named)
+            {
+                Add(_overlapped, stage, BeatStageTimings.Seconds(ticks));
+            }
+
+            return;
+        }
+
         var partsS = named.Sum(p => BeatStageTimings.Seconds(p.Item2));
         Add("read", Math.Max(0, passS - partsS));
         foreach (var (stage, ticks) in named)
@@ -53,6 +72,11 @@ public sealed class StageTimings
         {
             Add(stage, s);
         }
+
+        foreach (var (stage, s) in other.OverlappedParts)
+        {
+            Add(_overlapped, stage, s);
+        }
     }
 
     public override string ToString()
@@ -63,7 +87,17 @@ public sealed class StageTimings
             text.Append(text.Length == 0 ? "" : ", ").Append(CultureInfo.InvariantCulture, $"{stage} {s:F2} s");
         }
 
-        return text.Append(CultureInfo.InvariantCulture, $" (total {TotalS:F2} s)").ToString();
+        text.Append(CultureInfo.InvariantCulture, $" (total {TotalS:F2} s)");
+        if (_overlapped.Count > 0)
+        {
+            text.Append("; beats on two threads, thread time:");
+            foreach (var (stage, s) in _overlapped)
+            {
+                text.Append(CultureInfo.InvariantCulture, $" {stage} {s:F2} s");
+            }
+        }
+
+        return text.ToString();
     }
 }
 
