@@ -68,7 +68,7 @@ public sealed class MitdbEpisodeTests(ITestOutputHelper output)
         Assert.Equal(total, found);
     }
 
-    [Fact(Skip = "not reached: MITDB (SVTA overlapped by sve-run, svt or atrial-tachycardia 69.2 % (18/26) < 80 %: 222 (four, inside the rhythm stage's AF), 220 (one overlapped by nothing, one read as junctional-rhythm), 209 (sinus-tachycardia), 201 (a ve-run)")]
+    [Fact]
     public void Svta_OverlappedBySveRunSvtOrAtrialTachycardia_AtLeast80()
     {
         var (found, total, misses) = Overlapped(r => r.Label == "(SVTA",
