@@ -153,6 +153,14 @@ internal static class CandidateDescriber
             }
         }
 
+        // An extra detection leaves the rhythm's timing alone: the beat after it comes on time. A pause after the
+        // candidate (the next RR at least 1.2 times the reference; our choice) is the mark of premature beats, whose
+        // short intervals add up to the reference by chance (a compensatory pause after a ventricular run).
+        if (last + 1 < t.Count && t.HasRr(last + 1) && t.RrS[last + 1] >= 1.2 * reference)
+        {
+            return 0;
+        }
+
         var fastRr = 60.0 / s.TachycardiaRateBpm;
         int fast = 0, split = 0;
         for (var i = first; i <= last; i++)

@@ -7,7 +7,7 @@ namespace LongRecord.Analysis.Episodes;
 /// (3:1, 4:1 stretches) and the rhythm stage may see only pieces of it. A flutter episode is therefore extended beat by
 /// beat, both ways, while the RR stays a whole number (≥ 2) of flutter cycles (one interval off is bridged when the
 /// next three are on), and flutter episodes that then meet or
-/// overlap become one; other candidates wholly inside it are absorbed.
+/// overlap become one; other candidates wholly inside it are absorbed, but for ventricular runs, which stay episodes.
 /// </summary>
 internal static class FlutterExtent
 {
@@ -55,9 +55,11 @@ internal static class FlutterExtent
             result.Add(d with { First = first, Last = last });
         }
 
-        // Merge flutter drafts that meet; drop any other draft wholly inside a flutter one.
+        // Merge flutter drafts that meet; drop any other draft wholly inside a flutter one, except a ventricular one:
+        // ventricular beats during flutter are an episode of their own, as during AF (set aside, added back below).
         result.Sort((a, b) => a.First.CompareTo(b.First));
         var merged = new List<Draft>();
+        var ventricularInside = new List<Draft>();
         foreach (var d in result)
         {
             if (merged.Count > 0)
@@ -73,11 +75,21 @@ internal static class FlutterExtent
 
                 if (pFlutter && d.Last <= p.Last)
                 {
+                    if (d.Episode.Kind is EpisodeKinds.VeRun or EpisodeKinds.BroadTachycardia)
+                    {
+                        ventricularInside.Add(d);
+                    }
+
                     continue;
                 }
 
                 if (dFlutter && p.First >= d.First && p.Last <= d.Last)
                 {
+                    if (p.Episode.Kind is EpisodeKinds.VeRun or EpisodeKinds.BroadTachycardia)
+                    {
+                        ventricularInside.Add(p);
+                    }
+
                     merged[^1] = d;
                     continue;
                 }
@@ -105,6 +117,8 @@ internal static class FlutterExtent
             }
         }
 
+        merged.AddRange(ventricularInside);
+        merged.Sort((a, b) => a.First.CompareTo(b.First));
         return merged;
     }
 

@@ -4,13 +4,15 @@ using LongRecord.Analysis.Settings;
 namespace LongRecord.Analysis.Episodes;
 
 /// <summary>
-/// Onset and offset of an episode measured on its RR intervals. The onset ratio is the median of the first five RR
+/// Onset and offset of an episode measured on its RR intervals and its beats' P waves. The onset ratio is the median of the first five RR
 /// of the episode divided by the mean of the four RR before it, after the onset criterion of Swerdlow, Chen, Kass et
 /// al., "Discrimination of ventricular tachycardia from sinus tachycardia and atrial fibrillation in a tiered-therapy
 /// cardioverter-defibrillator", J Am Coll Cardiol 23:1342–1355, 1994 (each RR against the mean of the previous four;
 /// from memory): a median, because the first beat may be a late-coupled trigger, a premature beat in a gradual rise,
-/// or in flutter a long RR before the conduction settles. The episode's median RR must have dropped as well. The offset
-/// ratio mirrors it: the median of the five RR after the episode against the mean of its last four.
+/// or in flutter a long RR before the conduction settles. The episode's median RR must have dropped as well. An onset
+/// whose ratio is not low is still abrupt when the P waves before the QRS are lost from its first beats (the atrial
+/// mechanism changed; <see cref="PWavesLost"/>). The offset ratio mirrors it: the median of the five RR after the
+/// episode against the mean of its last four.
 /// </summary>
 internal static class OnsetOffset
 {
@@ -30,7 +32,8 @@ internal static class OnsetOffset
         // gradual rise, a late-coupled trigger or one long RR before variable conduction settles does not decide it.
         var early = MedianRr(t, first, Math.Min(last, first + EarlyBeats - 1));
         var ratio = early / before;
-        var abrupt = ratio <= s.AbruptOnsetRatio && median / before <= s.AbruptOnsetRatio + 0.05;
+        var faster = median / before <= s.AbruptOnsetRatio + 0.05;
+        var abrupt = faster && (ratio <= s.AbruptOnsetRatio || PWavesLost(t, first, last, s));
         var trigger = "none";
         if (abrupt)
         {
@@ -42,6 +45,26 @@ internal static class OnsetOffset
         }
 
         return new OnsetMeasure(abrupt ? "abrupt" : "gradual", ratio, trigger, warmUp);
+    }
+
+    /// <summary>
+    /// The sinus P wave that stood before every QRS is gone from the episode's first beats: the atria changed mechanism
+    /// at once (flutter or fibrillatory waves, or a re-entry that hides the P wave in the QRS), whatever the first RR
+    /// do. A sinus node that speeds up keeps its P wave through the rise. This decides the onset of flutter with
+    /// variable conduction, whose first 3:1 and 4:1 intervals can be as long as the sinus RR before it.
+    /// </summary>
+    private static bool PWavesLost(BeatTrack t, int first, int last, EpisodeSettings s)
+    {
+        var n = s.OnsetPWaveBeats;
+        if (last - first + 1 < n || first - n - 1 < 0)
+        {
+            return false;
+        }
+
+        // PBeforeShare leaves its first beat out: these are the n beats before the onset, and the episode's first n.
+        var before = AtrialActivity.PBeforeShare(t, first - n - 1, first - 1);
+        var early = AtrialActivity.PBeforeShare(t, first - 1, first + n - 1);
+        return before >= s.PBeforeQrsShare && early <= s.PWaveLostFraction * before;
     }
 
     public static OffsetMeasure Offset(BeatTrack t, int first, int last, EpisodeSettings s)

@@ -216,6 +216,15 @@ internal static class TachycardiaClassifier
             return (EpisodeKinds.Mat, 0.7);
         }
 
+        // Started abruptly by a premature atrial beat and made mostly of premature atrial beats: an atrial tachycardia
+        // (irregular from a focus warming up or from varying conduction), not sinus rhythm with PACs, whose beats are
+        // mostly sinus ones between the premature beats. As in the regular case above.
+        if (!byRhythmStage && f.Onset is { Type: "abrupt", Trigger: "premature-atrial" } && f.SShare >= 0.5)
+        {
+            e.Add("abrupt start on a premature atrial beat; beats premature atrial");
+            return (EpisodeKinds.AtrialTachycardia, 0.4);
+        }
+
         if (a.PBeforeShare >= s.PBeforeQrsShare && f.PrematureShare >= 0.1 && !(a.SinusPCorrelation < s.SinusPCorrelation))
         {
             return (EpisodeKinds.SinusWithPacs, 0.6);
@@ -226,9 +235,10 @@ internal static class TachycardiaClassifier
             return (Af(f, s), a.Finding == "fibrillatory-waves" ? 0.9 : 0.7);
         }
 
+        // A P wave before every QRS decides by its shape: unlike the sinus P, the rhythm is atrial, not sinus.
         if (a.PBeforeShare >= s.PBeforeQrsShare)
         {
-            return (EpisodeKinds.SinusTachycardia, 0.4);
+            return a.SinusPCorrelation < s.SinusPCorrelation ? (EpisodeKinds.AtrialTachycardia, 0.4) : (EpisodeKinds.SinusTachycardia, 0.4);
         }
 
         // A short narrow run that starts abruptly is a run of supraventricular ectopic beats even when the beats stage

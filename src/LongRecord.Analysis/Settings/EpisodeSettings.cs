@@ -52,6 +52,19 @@ public sealed record EpisodeSettings
     /// </summary>
     public double PostTerminationPauseFactor { get; init; } = 1.5;
 
+    /// <summary>
+    /// Beats on each side of an onset over which the share of beats with a P wave is compared (the P-wave test of an
+    /// onset, <c>Episodes/OnsetOffset</c>). 16: our choice (enough beats that a few premature atrial beats, whose P
+    /// waves the beats stage often misses, do not decide it).
+    /// </summary>
+    public int OnsetPWaveBeats { get; init; } = 16;
+
+    /// <summary>
+    /// The P waves are lost at an onset when the share of beats with one in the episode's first beats is at most this
+    /// fraction of the share before it (itself a P wave before every QRS). 0.5: our choice.
+    /// </summary>
+    public double PWaveLostFraction { get; init; } = 0.5;
+
     /// <summary>Warm-up and cool-down end where the RR comes within this fraction of the episode's median RR. 0.06: our choice.</summary>
     public double SteadyRrFraction { get; init; } = 0.06;
 
@@ -135,6 +148,8 @@ public sealed record EpisodeSettings
         new("abruptOffsetRatio", s => s.AbruptOffsetRatio, (s, v) => s with { AbruptOffsetRatio = v }, 1.01, 3),
         new("postTerminationPauseFactor", s => s.PostTerminationPauseFactor, (s, v) => s with { PostTerminationPauseFactor = v }, 1.1, 5),
         new("steadyRrFraction", s => s.SteadyRrFraction, (s, v) => s with { SteadyRrFraction = v }, 0.01, 0.3),
+        new("onsetPWaveBeats", s => s.OnsetPWaveBeats, (s, v) => s with { OnsetPWaveBeats = (int)v }, 4, 100, whole: true),
+        new("pWaveLostFraction", s => s.PWaveLostFraction, (s, v) => s with { PWaveLostFraction = v }, 0, 0.9),
         new("pBeforeQrsShare", s => s.PBeforeQrsShare, (s, v) => s with { PBeforeQrsShare = v }, 0.3, 1),
         new("pAbsentShare", s => s.PAbsentShare, (s, v) => s with { PAbsentShare = v }, 0, 0.7),
         new("sinusPCorrelation", s => s.SinusPCorrelation, (s, v) => s with { SinusPCorrelation = v }, 0, 1),

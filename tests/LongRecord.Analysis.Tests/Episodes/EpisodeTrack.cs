@@ -9,8 +9,12 @@ internal static class EpisodeTrack
 {
     public const double RateHz = 250;
 
-    /// <summary>Beats at the cumulative sums of <paramref name="rrS"/> (the first at 1 s), class N unless given.</summary>
-    public static BeatTrack FromRr(IReadOnlyList<double> rrS, Func<int, BeatClass>? classOf = null)
+    /// <summary>
+    /// Beats at the cumulative sums of <paramref name="rrS"/> (the first at 1 s), class N unless given, P wave not
+    /// judged unless given (1 found, 0 looked for and not found), morphology template unknown unless given.
+    /// </summary>
+    public static BeatTrack FromRr(IReadOnlyList<double> rrS, Func<int, BeatClass>? classOf = null, Func<int, sbyte>? pWaveOf = null,
+        Func<int, short>? templateOf = null)
     {
         var beats = new Beat[rrS.Count + 1];
         var t = 1.0;
@@ -21,7 +25,8 @@ internal static class EpisodeTrack
                 t += rrS[i - 1];
             }
 
-            beats[i] = Beat.Unmeasured((long)Math.Round(t * RateHz), classOf?.Invoke(i) ?? BeatClass.N);
+            beats[i] = Beat.Unmeasured((long)Math.Round(t * RateHz), classOf?.Invoke(i) ?? BeatClass.N, pWave: pWaveOf?.Invoke(i) ?? -1);
+            beats[i].Template = templateOf?.Invoke(i) ?? -1;
         }
 
         return new BeatTrack(beats, RateHz, [], maxBeatGapS: 10);

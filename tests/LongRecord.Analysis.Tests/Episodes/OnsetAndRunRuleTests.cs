@@ -58,6 +58,32 @@ public sealed class OnsetAndRunRuleTests
     }
 
     [Theory]
+    [InlineData(false, "gradual")]
+    [InlineData(true, "abrupt")]
+    public void VariableConductionWhoseFirstRrMatchSinus_IsAbruptOnlyWhenThePWavesAreLost(bool pWavesLost, string expected)
+    {
+        // Flutter at 290/min (cycle 0.207 s) after 30 sinus RR of 0.8 s, each sinus beat with its P wave. The first
+        // five flutter RR are 4:1, 3:1, 4:1, 3:1, 4:1 (0.83, 0.62, 0.83, 0.62, 0.83 s): their median, 0.83 s, over the
+        // four sinus RR (0.8 s) is an onset ratio of 1.04, no rate step. Then 2:1, 3:1, 2:1, 4:1 repeated ten times:
+        // the episode's median RR is 0.62 s, 0.78 of the sinus RR (at most 0.8 + 0.05). Flutter beats carry no P
+        // wave before the QRS, unless the case keeps them (a sinus node would).
+        var rr = EpisodeTrack.Repeat(0.8, 30);
+        rr.AddRange([0.83, 0.62, 0.83, 0.62, 0.83]);
+        for (var k = 0; k < 10; k++)
+        {
+            rr.AddRange([0.41, 0.62, 0.41, 0.83]);
+        }
+
+        const int first = 31;
+        var t = EpisodeTrack.FromRr(rr, pWaveOf: i => i < first || !pWavesLost ? (sbyte)1 : (sbyte)0);
+
+        var onset = OnsetOffset.Onset(t, first, rr.Count, s_settings);
+
+        Assert.Equal(0.83 / 0.8, onset.Ratio, tolerance: 0.01);   // beats fall on 4 ms samples
+        Assert.Equal(expected, onset.Type);
+    }
+
+    [Theory]
     [InlineData("svt", 10.0, 25, "sve-run", "run-6+")]
     [InlineData("atrial-tachycardia", 2.0, 5, "sve-run", "run-3-5")]
     [InlineData("broad-tachycardia", 1.5, 3, "ve-run", "run-3-5")]

@@ -44,7 +44,7 @@ public sealed class SyntheticEpisodeTests(ITestOutputHelper output)
         Assert.True(score.TimingShare >= 1.0, score.Summary("24 dB"));
     }
 
-    [Fact(Skip = "not reached at 24 dB: onset type 90.9 % (10/11) < 95 %: flutter with variable conduction read gradual (onset ratio 0.84; its first RR are 3:1 and 4:1 conduction, close to the sinus RR before it)")]
+    [Fact]
     public void Catalogue_At24dB_OnsetTypeAtLeast95()
     {
         var score = Score(24);

@@ -70,6 +70,7 @@ public sealed class BeatClassifier
             beat.Noise = _shape.NoiseRatio;
             var t = match.Template;
             beat.TemplatePrematureShare = t.Weight > 0 ? t.PrematureWeight / t.Weight : 0;
+            beat.TemplateVentricularShare = t.Weight > 0 ? t.VentricularWeight / t.Weight : 0;
             var normal = _templates.Normal!;
             beat.IsNormalTemplate = normal == match.Template;
             (beat.CorrelationToNormal, beat.AmplitudeToNormal, _) = beat.IsNormalTemplate
@@ -121,6 +122,11 @@ public sealed class BeatClassifier
     private void Decide(Pending beat, double rrNextS)
     {
         var (cls, flags) = _decision.Decide(beat, rrNextS);
+        if (cls == BeatClass.V && beat.Valid)
+        {
+            _templates.MarkVentricular(beat.Template);
+        }
+
         _decided.Enqueue(new ClassifiedBeat(beat.Sample, cls, beat.Valid ? beat.Template : (short)-1, flags, beat.Valid ? beat.WidthMs : float.NaN));
     }
 
@@ -153,6 +159,7 @@ public sealed class BeatClassifier
         public bool NormalBlocked;
         public float Noise;
         public double TemplatePrematureShare;
+        public double TemplateVentricularShare;
         public double AtrialCorrelation;
         public double AtrialToPrevious;
         public bool NewShape;

@@ -7,7 +7,9 @@ namespace LongRecord.Analysis.Beats.Classification;
 /// <item>V: a shape unlike the normal one (correlation below 0.9, or wider) and not narrower than it (unless the
 /// normal beat itself is as wide as a bundle-branch block), which is
 /// premature and either clearly unlike (below 0.7), wide, or followed by a full compensatory pause; or, on time,
-/// clearly unlike and either wide or from a cluster whose beats are mostly premature.</item>
+/// clearly unlike and either wide or from a cluster whose beats are mostly premature; or, on time, from a cluster whose
+/// beats were mostly decided V (a ventricular focus beating at a run's rate or after a pause is on time, and beats of
+/// one cluster share their origin; half: our choice), except during atrial fibrillation.</item>
 /// <item>S: a normal-like shape, premature against the local rhythm and abruptly shorter than the RR before, with a
 /// pre-QRS segment unlike the sinus one (ectopic P, or P hidden in the T wave), followed by a longer RR (the pause)
 /// or by more premature beats (a run). A run goes on while its RRs stay short against the rhythm before it; while it
@@ -67,7 +69,7 @@ internal sealed class BeatDecision
             var compensatory = !double.IsNaN(rrNextS) && !double.IsNaN(local) && rrPrev + rrNextS >= _s.CompensatoryRatio * 2 * local;
             var ventricular = !normalShape && !narrower && (premature
                 ? clearlyDifferent || wide || compensatory
-                : clearlyDifferent && (wide || beat.TemplatePrematureShare >= 0.5));
+                : (clearlyDifferent && (wide || beat.TemplatePrematureShare >= 0.5)) || VentricularCluster(beat));
             if (ventricular)
             {
                 // An on-time beat of a shape not seen before is more often artefact than ectopy.
@@ -86,6 +88,11 @@ internal sealed class BeatDecision
         Follow(cls, rrPrev, local, beat);
         return (cls, flags);
     }
+
+    // An on-time beat of a cluster whose beats were mostly decided V keeps that origin, except in atrial fibrillation:
+    // there no beat is on time against a rhythm, and aberrant conduction of the irregular beats shares shapes with them.
+    private bool VentricularCluster(in BeatClassifier.Pending beat) =>
+        beat.TemplateVentricularShare >= 0.5 && !_atrial.Fibrillation(_rhythm);
 
     private bool Supraventricular(double rrPrev, double rrBefore, double rrNext, double local, bool premature, in BeatClassifier.Pending beat)
     {

@@ -35,6 +35,9 @@ internal sealed class MorphologyTemplate
     /// <summary>Like <see cref="Weight"/>, counting only premature beats.</summary>
     public double PrematureWeight { get; set; }
 
+    /// <summary>Like <see cref="Weight"/>, counting only beats decided V.</summary>
+    public double VentricularWeight { get; set; }
+
     /// <summary>Running mean of the beats' slope-energy spread, ms.</summary>
     public double SpreadMs { get; set; }
 
@@ -56,6 +59,7 @@ internal sealed class MorphologyTemplate
         Weight *= factor;
         OnTimeWeight *= factor;
         PrematureWeight *= factor;
+        VentricularWeight *= factor;
     }
 
     public void RecomputeEnergy(int leads, int segment)

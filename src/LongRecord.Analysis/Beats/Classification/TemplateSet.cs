@@ -235,7 +235,7 @@ internal sealed class TemplateSet
         s.Id = _nextId;
         _nextId = _nextId == short.MaxValue ? (short)0 : (short)(_nextId + 1);
         s.Count = 0;
-        s.Weight = s.OnTimeWeight = s.PrematureWeight = 0;
+        s.Weight = s.OnTimeWeight = s.PrematureWeight = s.VentricularWeight = 0;
         s.SpreadMs = 0;
         s.WidthMs = double.NaN;
         s.WidthLowerQuartileMs = double.NaN;
@@ -245,6 +245,19 @@ internal sealed class TemplateSet
         Array.Clear(s.Atrial);
         s.AtrialCount = 0;
         return s;
+    }
+
+    /// <summary>Counts a beat of template <paramref name="id"/> decided V (nothing when the template has gone since).</summary>
+    public void MarkVentricular(short id)
+    {
+        foreach (var t in _templates)
+        {
+            if (t.InUse && t.Id == id)
+            {
+                t.VentricularWeight += 1;
+                return;
+            }
+        }
     }
 
     private void Update(MorphologyTemplate t, BeatShape beat, int shift, bool onTime, double widthMs)
@@ -336,6 +349,7 @@ internal sealed class TemplateSet
                     keep.Weight += drop.Weight;
                     keep.OnTimeWeight += drop.OnTimeWeight;
                     keep.PrematureWeight += drop.PrematureWeight;
+                    keep.VentricularWeight += drop.VentricularWeight;
                     drop.InUse = false;
                     if (Normal == drop)
                     {
