@@ -1,3 +1,5 @@
+using System.Runtime.Intrinsics;
+
 namespace LongRecord.Analysis.Beats.Delineation;
 
 /// <summary>
@@ -17,6 +19,7 @@ internal sealed class PWaveSearch
     private readonly int[][] _historyPr;    // per lead: the stored beats' candidate distance to the QRS onset, samples (−1 = none)
     private readonly int[] _historyCount;
     private readonly float[] _correlations;
+    private readonly int[] _lagOffsets;
 
     public PWaveSearch(int leads, in PWaveSamples p)
     {
@@ -33,6 +36,7 @@ internal sealed class PWaveSearch
         }
 
         _correlations = new float[p.History];
+        _lagOffsets = new int[2 * p.MaxLag / Math.Max(1, p.CorrelationStep) + 2];
     }
 
     /// <summary>
@@ -228,34 +232,51 @@ internal sealed class PWaveSearch
         }
 
         var varY = syy - sy * sy / m;
+        var offsets = _lagOffsets.AsSpan();
         var used = 0;
         for (var j = 0; j < count; j++)
         {
             var stored = _history[lead].AsSpan(j * _p.TemplateLength, _p.TemplateLength);
             var validFrom = _historyStart[lead][j];
-            var bestR = float.NaN;
+            // The lags that fit the stored window, in increasing order; their sums run side by side, four at a time
+            // (each lane adds its products in the order one lag alone would, so the figures are the same).
+            var lags = 0;
             for (var lag = -_p.MaxLag; lag <= _p.MaxLag; lag += step)
             {
                 var sa = a - windowStart + lag;
-                if (sa < validFrom || sa + n > _p.TemplateLength)
+                if (sa >= validFrom && sa + n <= _p.TemplateLength)
                 {
-                    continue;
+                    offsets[lags++] = sa;
                 }
+            }
 
-                float sx = 0, sxx = 0, sxy = 0;
-                for (int i = a, t = sa; i <= b; i += step, t += step)
+            var bestR = float.NaN;
+            for (var g = 0; g < lags; g += 4)
+            {
+                var o0 = offsets[g];
+                var o1 = g + 1 < lags ? offsets[g + 1] : o0;
+                var o2 = g + 2 < lags ? offsets[g + 2] : o0;
+                var o3 = g + 3 < lags ? offsets[g + 3] : o0;
+                var sx = Vector128<float>.Zero;
+                var sxx = Vector128<float>.Zero;
+                var sxy = Vector128<float>.Zero;
+                for (int i = a, t = 0; i <= b; i += step, t += step)
                 {
-                    var u = stored[t];
+                    var u = Vector128.Create(stored[o0 + t], stored[o1 + t], stored[o2 + t], stored[o3 + t]);
                     sx += u;
                     sxx += u * u;
-                    sxy += u * y[i];
+                    sxy += u * Vector128.Create(y[i]);
                 }
 
-                var den = MathF.Sqrt(Math.Max(0, sxx - sx * sx / m) * Math.Max(0, varY));
-                var r = den > 0 ? (sxy - sx * sy / m) / den : 0f;
-                if (float.IsNaN(bestR) || r > bestR)
+                for (var l = 0; l < 4 && g + l < lags; l++)
                 {
-                    bestR = r;
+                    float x1 = sx.GetElement(l), x2 = sxx.GetElement(l), xy = sxy.GetElement(l);
+                    var den = MathF.Sqrt(Math.Max(0, x2 - x1 * x1 / m) * Math.Max(0, varY));
+                    var r = den > 0 ? (xy - x1 * sy / m) / den : 0f;
+                    if (float.IsNaN(bestR) || r > bestR)
+                    {
+                        bestR = r;
+                    }
                 }
             }
 
