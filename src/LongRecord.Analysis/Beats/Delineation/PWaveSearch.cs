@@ -20,6 +20,7 @@ internal sealed class PWaveSearch
     private readonly int[] _historyCount;
     private readonly float[] _correlations;
     private readonly int[] _lagOffsets;
+    private float[] _residual = [];
 
     public PWaveSearch(int leads, in PWaveSamples p)
     {
@@ -61,6 +62,18 @@ internal sealed class PWaveSearch
         var right = MedianOf(y.Slice(end - _p.Edge, _p.Edge), scratch);
         var baseline = new Line(left, (right - left) / Math.Max(1, end - _p.Edge / 2 - (begin + _p.Edge / 2)), begin + _p.Edge / 2);
 
+        // The signal less the baseline, once, for every test below and for the history.
+        if (_residual.Length < y.Length)
+        {
+            _residual = new float[y.Length];
+        }
+
+        var r = _residual.AsSpan(0, y.Length);
+        for (var i = begin; i < qrsOnset; i++)
+        {
+            r[i] = y[i] - baseline.At(i);
+        }
+
         // The candidate: the largest local extremum that is a whole wave inside the window (it falls to half its
         // height on both sides), so the tail of the previous T wave at the window's start is not taken for a P wave.
         var peakFrom = Math.Max(begin + 1, qrsOnset - _p.PeakEarliest);
@@ -69,14 +82,14 @@ internal sealed class PWaveSearch
         var best = 0f;
         for (var i = peakFrom; i <= peakTo; i++)
         {
-            var v = y[i] - baseline.At(i);
+            var v = r[i];
             var size = Math.Abs(v);
-            if (size <= best || size < Math.Abs(y[i - 1] - baseline.At(i - 1)) || size < Math.Abs(y[i + 1] - baseline.At(i + 1)))
+            if (size <= best || size < Math.Abs(r[i - 1]) || size < Math.Abs(r[i + 1]))
             {
                 continue;
             }
 
-            if (WholeWave(y, begin, end, i, baseline))
+            if (WholeWave(r, begin, end, i))
             {
                 best = size;
                 at = i;
@@ -85,11 +98,11 @@ internal sealed class PWaveSearch
 
         if (at >= 0)
         {
-            Describe(y, begin, end, at, baseline, ref result);
+            Describe(r, begin, end, at, ref result);
             Judge(lead, y, begin, qrsOnset, at, ref result);
         }
 
-        Remember(lead, y, begin, qrsOnset, at, baseline);
+        Remember(lead, r, begin, qrsOnset, at);
         return result;
     }
 
@@ -134,47 +147,47 @@ internal sealed class PWaveSearch
         result.Accepted = true;
     }
 
-    private static bool WholeWave(ReadOnlySpan<float> y, int begin, int end, int at, in Line baseline)
+    private static bool WholeWave(ReadOnlySpan<float> r, int begin, int end, int at)
     {
-        var v = y[at] - baseline.At(at);
+        var v = r[at];
         var sign = Math.Sign(v);
         var half = 0.5f * Math.Abs(v);
         var lo = at;
-        while (lo > begin && sign * (y[lo] - baseline.At(lo)) > half)
+        while (lo > begin && sign * r[lo] > half)
         {
             lo--;
         }
 
         var hi = at;
-        while (hi < end - 1 && sign * (y[hi] - baseline.At(hi)) > half)
+        while (hi < end - 1 && sign * r[hi] > half)
         {
             hi++;
         }
 
-        return sign * (y[lo] - baseline.At(lo)) <= half && sign * (y[hi] - baseline.At(hi)) <= half;
+        return sign * r[lo] <= half && sign * r[hi] <= half;
     }
 
-    private void Describe(ReadOnlySpan<float> y, int begin, int end, int at, in Line baseline, ref LeadP result)
+    private void Describe(ReadOnlySpan<float> r, int begin, int end, int at, ref LeadP result)
     {
-        var amplitude = y[at] - baseline.At(at);
+        var amplitude = r[at];
         var sign = Math.Sign(amplitude);
         var size = Math.Abs(amplitude);
 
         // Extent of the wave: out from the peak while it keeps its sign and stays above 20 % of the peak.
         int lo = at, hi = at, halfLo = at, halfHi = at;
-        while (lo > begin && sign * (y[lo - 1] - baseline.At(lo - 1)) > 0.2f * size)
+        while (lo > begin && sign * r[lo - 1] > 0.2f * size)
         {
             lo--;
-            if (sign * (y[lo] - baseline.At(lo)) >= 0.5f * size)
+            if (sign * r[lo] >= 0.5f * size)
             {
                 halfLo = lo;
             }
         }
 
-        while (hi < end - 1 && sign * (y[hi + 1] - baseline.At(hi + 1)) > 0.2f * size)
+        while (hi < end - 1 && sign * r[hi + 1] > 0.2f * size)
         {
             hi++;
-            if (sign * (y[hi] - baseline.At(hi)) >= 0.5f * size)
+            if (sign * r[hi] >= 0.5f * size)
             {
                 halfHi = hi;
             }
@@ -191,7 +204,7 @@ internal sealed class PWaveSearch
                 continue;
             }
 
-            var v = y[i] - baseline.At(i);
+            var v = r[i];
             sum += v * v;
             largest = Math.Max(largest, Math.Abs(v));
             n++;
@@ -289,7 +302,7 @@ internal sealed class PWaveSearch
         return used > 0 ? Selection.Median(_correlations.AsSpan(0, used)) : float.NaN;
     }
 
-    private void Remember(int lead, ReadOnlySpan<float> y, int begin, int qrsOnset, int at, in Line baseline)
+    private void Remember(int lead, ReadOnlySpan<float> r, int begin, int qrsOnset, int at)
     {
         var slot = _historyCount[lead] % _p.History;
         var stored = _history[lead].AsSpan(slot * _p.TemplateLength, _p.TemplateLength);
@@ -298,7 +311,7 @@ internal sealed class PWaveSearch
         for (var i = 0; i < stored.Length; i++)
         {
             var src = windowStart + i;
-            stored[i] = i >= validFrom && src >= 0 ? y[src] - baseline.At(src) : 0f;
+            stored[i] = i >= validFrom && src >= 0 ? r[src] : 0f;
         }
 
         _historyStart[lead][slot] = validFrom;
