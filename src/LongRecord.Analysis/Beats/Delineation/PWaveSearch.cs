@@ -1,4 +1,5 @@
 using System.Runtime.Intrinsics;
+using System.Runtime.Intrinsics.X86;
 
 namespace LongRecord.Analysis.Beats.Delineation;
 
@@ -273,12 +274,40 @@ internal sealed class PWaveSearch
                 var sx = Vector128<float>.Zero;
                 var sxx = Vector128<float>.Zero;
                 var sxy = Vector128<float>.Zero;
-                for (int i = a, t = 0; i <= b; i += step, t += step)
+
+                // Four lags one step apart read stored[o0 + t + k·step]: for steps of one and two samples (up to
+                // 250 Hz) these come from one or two loads instead of four.
+                var evenlySpaced = g + 3 < lags && o1 == o0 + step && o2 == o0 + 2 * step && o3 == o0 + 3 * step;
+                if (evenlySpaced && step == 1)
                 {
-                    var u = Vector128.Create(stored[o0 + t], stored[o1 + t], stored[o2 + t], stored[o3 + t]);
-                    sx += u;
-                    sxx += u * u;
-                    sxy += u * Vector128.Create(y[i]);
+                    for (int i = a, t = o0; i <= b; i += step, t += step)
+                    {
+                        var u = Vector128.Create(stored.Slice(t, 4));
+                        sx += u;
+                        sxx += u * u;
+                        sxy += u * Vector128.Create(y[i]);
+                    }
+                }
+                else if (evenlySpaced && step == 2 && Sse.IsSupported)
+                {
+                    for (int i = a, t = o0; i <= b; i += step, t += step)
+                    {
+                        // Elements 0 and 2 of stored[t..t+3] and 1 and 3 of stored[t+3..t+6]: t, t+2, t+4, t+6.
+                        var u = Sse.Shuffle(Vector128.Create(stored.Slice(t, 4)), Vector128.Create(stored.Slice(t + 3, 4)), 0b11_01_10_00);
+                        sx += u;
+                        sxx += u * u;
+                        sxy += u * Vector128.Create(y[i]);
+                    }
+                }
+                else
+                {
+                    for (int i = a, t = 0; i <= b; i += step, t += step)
+                    {
+                        var u = Vector128.Create(stored[o0 + t], stored[o1 + t], stored[o2 + t], stored[o3 + t]);
+                        sx += u;
+                        sxx += u * u;
+                        sxy += u * Vector128.Create(y[i]);
+                    }
                 }
 
                 for (var l = 0; l < 4 && g + l < lags; l++)
