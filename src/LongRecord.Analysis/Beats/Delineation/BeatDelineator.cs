@@ -41,6 +41,7 @@ public sealed partial class BeatDelineator
     private float[] _waveSignal = [];
     private float[] _waveSlope = [];
     private float[] _scratch = [];
+    private int[] _segmentStarts = [];
     private float[] _energy = [];
     private double[] _work = [];
 
@@ -192,8 +193,6 @@ public sealed partial class BeatDelineator
             }
 
             usable++;
-            raw.CopyTo(_qrsSignal.AsSpan(k * length, length));
-            raw.CopyTo(_waveSignal.AsSpan(k * length, length));
         }
 
         if (usable == 0)

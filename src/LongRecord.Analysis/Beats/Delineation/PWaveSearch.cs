@@ -1,3 +1,6 @@
+using System.Runtime.Intrinsics;
+using System.Runtime.Intrinsics.X86;
+
 namespace LongRecord.Analysis.Beats.Delineation;
 
 /// <summary>
@@ -17,6 +20,8 @@ internal sealed class PWaveSearch
     private readonly int[][] _historyPr;    // per lead: the stored beats' candidate distance to the QRS onset, samples (−1 = none)
     private readonly int[] _historyCount;
     private readonly float[] _correlations;
+    private readonly int[] _lagOffsets;
+    private float[] _residual = [];
 
     public PWaveSearch(int leads, in PWaveSamples p)
     {
@@ -33,6 +38,7 @@ internal sealed class PWaveSearch
         }
 
         _correlations = new float[p.History];
+        _lagOffsets = new int[2 * p.MaxLag / Math.Max(1, p.CorrelationStep) + 2];
     }
 
     /// <summary>
@@ -57,6 +63,18 @@ internal sealed class PWaveSearch
         var right = MedianOf(y.Slice(end - _p.Edge, _p.Edge), scratch);
         var baseline = new Line(left, (right - left) / Math.Max(1, end - _p.Edge / 2 - (begin + _p.Edge / 2)), begin + _p.Edge / 2);
 
+        // The signal less the baseline, once, for every test below and for the history.
+        if (_residual.Length < y.Length)
+        {
+            _residual = new float[y.Length];
+        }
+
+        var r = _residual.AsSpan(0, y.Length);
+        for (var i = begin; i < qrsOnset; i++)
+        {
+            r[i] = y[i] - baseline.At(i);
+        }
+
         // The candidate: the largest local extremum that is a whole wave inside the window (it falls to half its
         // height on both sides), so the tail of the previous T wave at the window's start is not taken for a P wave.
         var peakFrom = Math.Max(begin + 1, qrsOnset - _p.PeakEarliest);
@@ -65,14 +83,14 @@ internal sealed class PWaveSearch
         var best = 0f;
         for (var i = peakFrom; i <= peakTo; i++)
         {
-            var v = y[i] - baseline.At(i);
+            var v = r[i];
             var size = Math.Abs(v);
-            if (size <= best || size < Math.Abs(y[i - 1] - baseline.At(i - 1)) || size < Math.Abs(y[i + 1] - baseline.At(i + 1)))
+            if (size <= best || size < Math.Abs(r[i - 1]) || size < Math.Abs(r[i + 1]))
             {
                 continue;
             }
 
-            if (WholeWave(y, begin, end, i, baseline))
+            if (WholeWave(r, begin, end, i))
             {
                 best = size;
                 at = i;
@@ -81,11 +99,11 @@ internal sealed class PWaveSearch
 
         if (at >= 0)
         {
-            Describe(y, begin, end, at, baseline, ref result);
+            Describe(r, begin, end, at, ref result);
             Judge(lead, y, begin, qrsOnset, at, ref result);
         }
 
-        Remember(lead, y, begin, qrsOnset, at, baseline);
+        Remember(lead, r, begin, qrsOnset, at);
         return result;
     }
 
@@ -130,47 +148,47 @@ internal sealed class PWaveSearch
         result.Accepted = true;
     }
 
-    private static bool WholeWave(ReadOnlySpan<float> y, int begin, int end, int at, in Line baseline)
+    private static bool WholeWave(ReadOnlySpan<float> r, int begin, int end, int at)
     {
-        var v = y[at] - baseline.At(at);
+        var v = r[at];
         var sign = Math.Sign(v);
         var half = 0.5f * Math.Abs(v);
         var lo = at;
-        while (lo > begin && sign * (y[lo] - baseline.At(lo)) > half)
+        while (lo > begin && sign * r[lo] > half)
         {
             lo--;
         }
 
         var hi = at;
-        while (hi < end - 1 && sign * (y[hi] - baseline.At(hi)) > half)
+        while (hi < end - 1 && sign * r[hi] > half)
         {
             hi++;
         }
 
-        return sign * (y[lo] - baseline.At(lo)) <= half && sign * (y[hi] - baseline.At(hi)) <= half;
+        return sign * r[lo] <= half && sign * r[hi] <= half;
     }
 
-    private void Describe(ReadOnlySpan<float> y, int begin, int end, int at, in Line baseline, ref LeadP result)
+    private void Describe(ReadOnlySpan<float> r, int begin, int end, int at, ref LeadP result)
     {
-        var amplitude = y[at] - baseline.At(at);
+        var amplitude = r[at];
         var sign = Math.Sign(amplitude);
         var size = Math.Abs(amplitude);
 
         // Extent of the wave: out from the peak while it keeps its sign and stays above 20 % of the peak.
         int lo = at, hi = at, halfLo = at, halfHi = at;
-        while (lo > begin && sign * (y[lo - 1] - baseline.At(lo - 1)) > 0.2f * size)
+        while (lo > begin && sign * r[lo - 1] > 0.2f * size)
         {
             lo--;
-            if (sign * (y[lo] - baseline.At(lo)) >= 0.5f * size)
+            if (sign * r[lo] >= 0.5f * size)
             {
                 halfLo = lo;
             }
         }
 
-        while (hi < end - 1 && sign * (y[hi + 1] - baseline.At(hi + 1)) > 0.2f * size)
+        while (hi < end - 1 && sign * r[hi + 1] > 0.2f * size)
         {
             hi++;
-            if (sign * (y[hi] - baseline.At(hi)) >= 0.5f * size)
+            if (sign * r[hi] >= 0.5f * size)
             {
                 halfHi = hi;
             }
@@ -187,7 +205,7 @@ internal sealed class PWaveSearch
                 continue;
             }
 
-            var v = y[i] - baseline.At(i);
+            var v = r[i];
             sum += v * v;
             largest = Math.Max(largest, Math.Abs(v));
             n++;
@@ -228,34 +246,79 @@ internal sealed class PWaveSearch
         }
 
         var varY = syy - sy * sy / m;
+        var offsets = _lagOffsets.AsSpan();
         var used = 0;
         for (var j = 0; j < count; j++)
         {
             var stored = _history[lead].AsSpan(j * _p.TemplateLength, _p.TemplateLength);
             var validFrom = _historyStart[lead][j];
-            var bestR = float.NaN;
+            // The lags that fit the stored window, in increasing order; their sums run side by side, four at a time
+            // (each lane adds its products in the order one lag alone would, so the figures are the same).
+            var lags = 0;
             for (var lag = -_p.MaxLag; lag <= _p.MaxLag; lag += step)
             {
                 var sa = a - windowStart + lag;
-                if (sa < validFrom || sa + n > _p.TemplateLength)
+                if (sa >= validFrom && sa + n <= _p.TemplateLength)
                 {
-                    continue;
+                    offsets[lags++] = sa;
+                }
+            }
+
+            var bestR = float.NaN;
+            for (var g = 0; g < lags; g += 4)
+            {
+                var o0 = offsets[g];
+                var o1 = g + 1 < lags ? offsets[g + 1] : o0;
+                var o2 = g + 2 < lags ? offsets[g + 2] : o0;
+                var o3 = g + 3 < lags ? offsets[g + 3] : o0;
+                var sx = Vector128<float>.Zero;
+                var sxx = Vector128<float>.Zero;
+                var sxy = Vector128<float>.Zero;
+
+                // Four lags one step apart read stored[o0 + t + k·step]: for steps of one and two samples (up to
+                // 250 Hz) these come from one or two loads instead of four.
+                var evenlySpaced = g + 3 < lags && o1 == o0 + step && o2 == o0 + 2 * step && o3 == o0 + 3 * step;
+                if (evenlySpaced && step == 1)
+                {
+                    for (int i = a, t = o0; i <= b; i += step, t += step)
+                    {
+                        var u = Vector128.Create(stored.Slice(t, 4));
+                        sx += u;
+                        sxx += u * u;
+                        sxy += u * Vector128.Create(y[i]);
+                    }
+                }
+                else if (evenlySpaced && step == 2 && Sse.IsSupported)
+                {
+                    for (int i = a, t = o0; i <= b; i += step, t += step)
+                    {
+                        // Elements 0 and 2 of stored[t..t+3] and 1 and 3 of stored[t+3..t+6]: t, t+2, t+4, t+6.
+                        var u = Sse.Shuffle(Vector128.Create(stored.Slice(t, 4)), Vector128.Create(stored.Slice(t + 3, 4)), 0b11_01_10_00);
+                        sx += u;
+                        sxx += u * u;
+                        sxy += u * Vector128.Create(y[i]);
+                    }
+                }
+                else
+                {
+                    for (int i = a, t = 0; i <= b; i += step, t += step)
+                    {
+                        var u = Vector128.Create(stored[o0 + t], stored[o1 + t], stored[o2 + t], stored[o3 + t]);
+                        sx += u;
+                        sxx += u * u;
+                        sxy += u * Vector128.Create(y[i]);
+                    }
                 }
 
-                float sx = 0, sxx = 0, sxy = 0;
-                for (int i = a, t = sa; i <= b; i += step, t += step)
+                for (var l = 0; l < 4 && g + l < lags; l++)
                 {
-                    var u = stored[t];
-                    sx += u;
-                    sxx += u * u;
-                    sxy += u * y[i];
-                }
-
-                var den = MathF.Sqrt(Math.Max(0, sxx - sx * sx / m) * Math.Max(0, varY));
-                var r = den > 0 ? (sxy - sx * sy / m) / den : 0f;
-                if (float.IsNaN(bestR) || r > bestR)
-                {
-                    bestR = r;
+                    float x1 = sx.GetElement(l), x2 = sxx.GetElement(l), xy = sxy.GetElement(l);
+                    var den = MathF.Sqrt(Math.Max(0, x2 - x1 * x1 / m) * Math.Max(0, varY));
+                    var r = den > 0 ? (xy - x1 * sy / m) / den : 0f;
+                    if (float.IsNaN(bestR) || r > bestR)
+                    {
+                        bestR = r;
+                    }
                 }
             }
 
@@ -268,7 +331,7 @@ internal sealed class PWaveSearch
         return used > 0 ? Selection.Median(_correlations.AsSpan(0, used)) : float.NaN;
     }
 
-    private void Remember(int lead, ReadOnlySpan<float> y, int begin, int qrsOnset, int at, in Line baseline)
+    private void Remember(int lead, ReadOnlySpan<float> r, int begin, int qrsOnset, int at)
     {
         var slot = _historyCount[lead] % _p.History;
         var stored = _history[lead].AsSpan(slot * _p.TemplateLength, _p.TemplateLength);
@@ -277,7 +340,7 @@ internal sealed class PWaveSearch
         for (var i = 0; i < stored.Length; i++)
         {
             var src = windowStart + i;
-            stored[i] = i >= validFrom && src >= 0 ? y[src] - baseline.At(src) : 0f;
+            stored[i] = i >= validFrom && src >= 0 ? r[src] : 0f;
         }
 
         _historyStart[lead][slot] = validFrom;

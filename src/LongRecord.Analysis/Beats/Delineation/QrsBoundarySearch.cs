@@ -219,9 +219,9 @@ internal static class QrsBoundarySearch
             return run > 0 ? candidate : -1;
         }
 
-        var sign = Math.Sign(d[from]);
+        var sign = SignOf(d[from]);
         var j = from;
-        while (Inside(j + dir, limit, dir) && Math.Abs(d[j]) > threshold && Math.Sign(d[j + dir]) == sign)
+        while (Inside(j + dir, limit, dir) && Math.Abs(d[j]) > threshold && SignOf(d[j + dir]) == sign)
         {
             j += dir;
         }
@@ -232,9 +232,9 @@ internal static class QrsBoundarySearch
     // Last index, going in `dir` from i, that keeps the slope sign of i.
     private static int LimbEdge(ReadOnlySpan<float> d, int i, int limit, int dir)
     {
-        var sign = Math.Sign(d[i]);
+        var sign = SignOf(d[i]);
         var j = i;
-        while (Inside(j + dir, limit, dir) && Math.Sign(d[j + dir]) == sign && sign != 0)
+        while (Inside(j + dir, limit, dir) && SignOf(d[j + dir]) == sign && sign != 0)
         {
             j += dir;
         }
@@ -257,6 +257,9 @@ internal static class QrsBoundarySearch
 
         return at;
     }
+
+    // The sign of a finite slope without Math.Sign's NaN check, which keeps it from being inlined in the limb walks.
+    private static int SignOf(float v) => (v > 0 ? 1 : 0) - (v < 0 ? 1 : 0);
 
     private static bool Inside(int i, int limit, int dir) => dir < 0 ? i > limit : i < limit;
 

@@ -1,6 +1,7 @@
 using System.Runtime.CompilerServices;
 using System.Runtime.InteropServices;
 using System.Runtime.Intrinsics;
+using System.Runtime.Intrinsics.X86;
 using NWaves.Filters.Fda;
 
 namespace LongRecord.Analysis.Beats.Delineation;
@@ -98,15 +99,27 @@ internal sealed class ZeroPhaseLowPass
 
         var u = Vector256.Create((double)s0, s1, s2, s3);
         Vector256<double> u1 = u, u2 = u, y1 = gain * u, y2 = y1;
-        for (nuint i = 0; i < (nuint)n; i++)
+        nuint i = 0;
+        if (Avx.IsSupported)
+        {
+            // Four samples of the four sources at a time, turned into four vectors of one sample each (a 4 × 4
+            // transpose); widening to double is exact, so each lane sees the values the one-by-one loads give.
+            for (; i + 4 <= (nuint)n; i += 4)
+            {
+                Transpose(
+                    Vector128.LoadUnsafe(ref s0, i), Vector128.LoadUnsafe(ref s1, i), Vector128.LoadUnsafe(ref s2, i), Vector128.LoadUnsafe(ref s3, i),
+                    out var c0, out var c1, out var c2, out var c3);
+                Step(Avx.ConvertToVector256Double(c0), ref u1, ref u2, ref y1, ref y2, b0, b1, b2, minusA1, a2).StoreUnsafe(ref w, 4 * i);
+                Step(Avx.ConvertToVector256Double(c1), ref u1, ref u2, ref y1, ref y2, b0, b1, b2, minusA1, a2).StoreUnsafe(ref w, 4 * (i + 1));
+                Step(Avx.ConvertToVector256Double(c2), ref u1, ref u2, ref y1, ref y2, b0, b1, b2, minusA1, a2).StoreUnsafe(ref w, 4 * (i + 2));
+                Step(Avx.ConvertToVector256Double(c3), ref u1, ref u2, ref y1, ref y2, b0, b1, b2, minusA1, a2).StoreUnsafe(ref w, 4 * (i + 3));
+            }
+        }
+
+        for (; i < (nuint)n; i++)
         {
             u = Vector256.Create((double)Unsafe.Add(ref s0, i), Unsafe.Add(ref s1, i), Unsafe.Add(ref s2, i), Unsafe.Add(ref s3, i));
-            var y = Vector256.FusedMultiplyAdd(minusA1, y1, b0 * u + b1 * u1 + b2 * u2 - a2 * y2);
-            u2 = u1;
-            u1 = u;
-            y2 = y1;
-            y1 = y;
-            y.StoreUnsafe(ref w, 4 * i);
+            Step(u, ref u1, ref u2, ref y1, ref y2, b0, b1, b2, minusA1, a2).StoreUnsafe(ref w, 4 * i);
         }
 
         Span<float> none = stackalloc float[1];
@@ -119,28 +132,85 @@ internal sealed class ZeroPhaseLowPass
         u2 = u;
         y1 = gain * u;
         y2 = y1;
-        for (var i = n - 1; i >= 0; i--)
+        var j = n - 1;
+        if (Avx.IsSupported)
         {
-            u = Vector256.LoadUnsafe(ref w, 4 * (nuint)i);
-            var y = Vector256.FusedMultiplyAdd(minusA1, y1, b0 * u + b1 * u1 + b2 * u2 - a2 * y2);
-            u2 = u1;
-            u1 = u;
-            y2 = y1;
-            y1 = y;
-            Unsafe.Add(ref d0, i) = (float)y.GetElement(0);
-            if (count > 1)
+            // Four outputs at a time, narrowed to float (rounded to nearest, as the cast rounds) and turned back
+            // into four samples of each destination.
+            for (; j >= 3; j -= 4)
             {
-                Unsafe.Add(ref d1, i) = (float)y.GetElement(1);
-                if (count > 2)
+                var ya = Step(Vector256.LoadUnsafe(ref w, 4 * (nuint)j), ref u1, ref u2, ref y1, ref y2, b0, b1, b2, minusA1, a2);
+                var yb = Step(Vector256.LoadUnsafe(ref w, 4 * (nuint)(j - 1)), ref u1, ref u2, ref y1, ref y2, b0, b1, b2, minusA1, a2);
+                var yc = Step(Vector256.LoadUnsafe(ref w, 4 * (nuint)(j - 2)), ref u1, ref u2, ref y1, ref y2, b0, b1, b2, minusA1, a2);
+                var yd = Step(Vector256.LoadUnsafe(ref w, 4 * (nuint)(j - 3)), ref u1, ref u2, ref y1, ref y2, b0, b1, b2, minusA1, a2);
+                Transpose(
+                    Avx.ConvertToVector128Single(yd), Avx.ConvertToVector128Single(yc), Avx.ConvertToVector128Single(yb), Avx.ConvertToVector128Single(ya),
+                    out var c0, out var c1, out var c2, out var c3);
+                var at = (nuint)(j - 3);
+                c0.StoreUnsafe(ref d0, at);
+                if (count > 1)
                 {
-                    Unsafe.Add(ref d2, i) = (float)y.GetElement(2);
-                    if (count > 3)
+                    c1.StoreUnsafe(ref d1, at);
+                    if (count > 2)
                     {
-                        Unsafe.Add(ref d3, i) = (float)y.GetElement(3);
+                        c2.StoreUnsafe(ref d2, at);
+                        if (count > 3)
+                        {
+                            c3.StoreUnsafe(ref d3, at);
+                        }
                     }
                 }
             }
         }
+
+        for (; j >= 0; j--)
+        {
+            u = Vector256.LoadUnsafe(ref w, 4 * (nuint)j);
+            var y = Step(u, ref u1, ref u2, ref y1, ref y2, b0, b1, b2, minusA1, a2);
+            Unsafe.Add(ref d0, j) = (float)y.GetElement(0);
+            if (count > 1)
+            {
+                Unsafe.Add(ref d1, j) = (float)y.GetElement(1);
+                if (count > 2)
+                {
+                    Unsafe.Add(ref d2, j) = (float)y.GetElement(2);
+                    if (count > 3)
+                    {
+                        Unsafe.Add(ref d3, j) = (float)y.GetElement(3);
+                    }
+                }
+            }
+        }
+    }
+
+    // One step of the recursion in every lane: y = b0·u + b1·u1 + b2·u2 − a2·y2, then − a1·y1 fused last.
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static Vector256<double> Step(
+        Vector256<double> u, ref Vector256<double> u1, ref Vector256<double> u2, ref Vector256<double> y1, ref Vector256<double> y2,
+        Vector256<double> b0, Vector256<double> b1, Vector256<double> b2, Vector256<double> minusA1, Vector256<double> a2)
+    {
+        var y = Vector256.FusedMultiplyAdd(minusA1, y1, b0 * u + b1 * u1 + b2 * u2 - a2 * y2);
+        u2 = u1;
+        u1 = u;
+        y2 = y1;
+        y1 = y;
+        return y;
+    }
+
+    // Rows r0..r3 into columns c0..c3 (c_k holds element k of every row).
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static void Transpose(
+        Vector128<float> r0, Vector128<float> r1, Vector128<float> r2, Vector128<float> r3,
+        out Vector128<float> c0, out Vector128<float> c1, out Vector128<float> c2, out Vector128<float> c3)
+    {
+        var t0 = Sse.UnpackLow(r0, r1);
+        var t1 = Sse.UnpackLow(r2, r3);
+        var t2 = Sse.UnpackHigh(r0, r1);
+        var t3 = Sse.UnpackHigh(r2, r3);
+        c0 = Sse.MoveLowToHigh(t0, t1);
+        c1 = Sse.MoveHighToLow(t1, t0);
+        c2 = Sse.MoveLowToHigh(t2, t3);
+        c3 = Sse.MoveHighToLow(t3, t2);
     }
 
     // One lane, forward then backward, with the vector loop's arithmetic.
