@@ -10,7 +10,7 @@ namespace LongRecord.Benchmarks;
 /// <c>-- --short</c> prints quick figures (used by CI: figures only, never a gate);
 /// <c>-- --memory</c> reads a 72 h recording and prints the peak working set;
 /// <c>-- --ltafdb</c> re-analyses every LTAFDB record present from its .qrs beats and prints the time;
-/// <c>-- --batch</c> prints the batch issue's figures (<c>--single</c>: the 72 h recording only).
+/// <c>-- --batch</c> prints the batch issue's figures (<c>--single</c>: the 72 h recording only; <c>--one-thread</c>: its beats stage on one thread);
 /// <c>-- --episodes</c> times beats, rhythm and episodes of the 24 h demo day.
 /// </summary>
 public static class Program
@@ -25,7 +25,7 @@ public static class Program
 
         if (args.Contains("--batch"))
         {
-            Batch.BatchBenchmarks.Run(skipFolder: args.Contains("--single"));
+            Batch.BatchBenchmarks.Run(skipFolder: args.Contains("--single"), oneThread: args.Contains("--one-thread"));
             return 0;
         }
 
