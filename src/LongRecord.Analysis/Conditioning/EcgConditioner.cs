@@ -41,7 +41,7 @@ public sealed class EcgConditioner
         RestoreGaps(signal, gaps);
     }
 
-    /// <summary>The filter cascade, for <see cref="LeadSetConditioner"/>, which runs two leads' cascades together.</summary>
+    /// <summary>The filter cascade, for <see cref="LeadSetConditioner"/>, which runs several leads' cascades together.</summary>
     internal BiquadCascade Filter => _filter;
 
     /// <summary>
@@ -91,6 +91,12 @@ public sealed class EcgConditioner
 
         return gaps;
     }
+
+    /// <summary>
+    /// The gaps the last <see cref="HoldGaps"/> returned, given their length (zero when there were none), for a caller
+    /// that holds several leads' gaps before filtering them together.
+    /// </summary>
+    internal ReadOnlySpan<bool> HeldGaps(int length) => _gaps.AsSpan(0, length);
 
     /// <summary>After filtering: missing samples become NaN again.</summary>
     internal static void RestoreGaps(Span<float> signal, ReadOnlySpan<bool> gaps)

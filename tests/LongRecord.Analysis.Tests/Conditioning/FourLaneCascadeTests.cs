@@ -1,0 +1,185 @@
+using LongRecord.Analysis.Conditioning;
+using LongRecord.Analysis.Tests.Support;
+
+// Not LongRecord.Analysis.Tests.Conditioning (the folder): a namespace of that name would capture the relative name
+// Conditioning.EcgConditioner that Quality/MonitorContractTests.cs uses.
+namespace LongRecord.Analysis.Tests;
+
+/// <summary>
+/// Three to seven leads filtered together in the lanes of one vector give every lead's samples bit for bit as the lead
+/// filtered alone, whatever the block size and with missing samples. The reference is each lead through its own
+/// <see cref="EcgConditioner"/> or lone <see cref="BiquadCascade"/> (the cascade whole); the signals are MIT-BIH Arrhythmia Database
+/// records 207 and 208 (PhysioNet, read in place), four different leads so that a lane mix-up shows.
+/// </summary>
+public sealed class FourLaneCascadeTests
+{
+    // 360 Hz: the conditioner's cascade has three sections (high-pass, 50 and 60 Hz notches). Read as 128 Hz samples it
+    // has two (no 60 Hz notch above 0.45 of the rate), and the detector's 5–15 Hz band-pass has two.
+    public static TheoryData<int, int, double> LeadsBlocksRates()
+    {
+        var data = new TheoryData<int, int, double>();
+        foreach (var leads in new[] { 3, 4, 5, 7 })
+        {
+            foreach (var block in new[] { 1, 7, 1000 })
+            {
+                foreach (var rate in new[] { 360.0, 128.0 })
+                {
+                    data.Add(leads, block, rate);
+                }
+            }
+        }
+
+        return data;
+    }
+
+    [Theory]
+    [MemberData(nameof(LeadsBlocksRates))]
+    public void LeadSet_AnyBlockSize_EqualsEachLeadAlone(int leads, int block, double rateHz)
+    {
+        var raw = Leads(leads, withGaps: true);
+        // Each lead alone in the same blocks (a recording that starts inside a gap settles the filter on its first block).
+        var alone = raw.Select(_ => new EcgConditioner(rateHz)).ToArray();
+        var expected = raw.Select((l, k) =>
+        {
+            var c = (float[])l.Clone();
+            for (var start = 0; start < c.Length; start += block)
+            {
+                alone[k].Process(c.AsSpan(start, Math.Min(block, c.Length - start)));
+            }
+
+            return c;
+        }).ToArray();
+
+        var set = new LeadSetConditioner(rateHz, leads);
+        var n = raw[0].Length;
+        var buffer = new float[leads * block];
+        var actual = raw.Select(_ => new float[n]).ToArray();
+        for (var start = 0; start < n; start += block)
+        {
+            var count = Math.Min(block, n - start);
+            for (var k = 0; k < leads; k++)
+            {
+                raw[k].AsSpan(start, count).CopyTo(buffer.AsSpan(k * count, count));
+            }
+
+            set.Process(buffer, count);
+            for (var k = 0; k < leads; k++)
+            {
+                buffer.AsSpan(k * count, count).CopyTo(actual[k].AsSpan(start, count));
+            }
+        }
+
+        for (var k = 0; k < leads; k++)
+        {
+            AssertBitIdentical(expected[k], actual[k], $"lead {k} of {leads}, block {block}, {rateHz} Hz");
+        }
+
+        // The float outputs rarely show a last-bit difference of the double arithmetic; the filter states do.
+        for (var k = 0; k < leads; k++)
+        {
+            Assert.Equal(alone[k].Filter.StateSnapshot(), set.LeadFilter(k).StateSnapshot());
+        }
+    }
+
+    [Theory]
+    [InlineData(3, 1)]
+    [InlineData(3, 7)]
+    [InlineData(3, 1000)]
+    [InlineData(4, 1)]
+    [InlineData(4, 7)]
+    [InlineData(4, 1000)]
+    public void DetectorBandPass_FourLanes_EqualsEachLeadAlone(int leads, int block)
+    {
+        // The detector's band-pass (5–15 Hz, second-order Butterworth band-pass: two sections), NWaves frequencies
+        // divided by the sampling rate. Held samples in place of gaps, as the detector feeds it.
+        const double fs = 360;
+        var raw = Leads(leads, withGaps: false);
+        BiquadCascade Design() => new(new NWaves.Filters.Butterworth.BandPassFilter(5 / fs, 15 / fs, 2).Tf);
+        var lone = raw.Select(_ => Design()).ToArray();
+        var expected = raw.Select((l, k) =>
+        {
+            var c = (float[])l.Clone();
+            lone[k].SettleAt(c[0]);
+            lone[k].Process(c);
+            return c;
+        }).ToArray();
+
+        var cascades = Enumerable.Range(0, leads).Select(_ => Design()).ToArray();
+        Assert.Equal(2, cascades[0].Sections);
+        for (var k = 0; k < leads; k++)
+        {
+            cascades[k].SettleAt(raw[k][0]);
+        }
+
+        var n = raw[0].Length;
+        var buffer = new float[leads * block];
+        var actual = raw.Select(_ => new float[n]).ToArray();
+        for (var start = 0; start < n; start += block)
+        {
+            var count = Math.Min(block, n - start);
+            for (var k = 0; k < leads; k++)
+            {
+                raw[k].AsSpan(start, count).CopyTo(buffer.AsSpan(k * count, count));
+            }
+
+            BiquadCascade.ProcessFour(cascades, buffer, count);
+            for (var k = 0; k < leads; k++)
+            {
+                buffer.AsSpan(k * count, count).CopyTo(actual[k].AsSpan(start, count));
+            }
+        }
+
+        for (var k = 0; k < leads; k++)
+        {
+            AssertBitIdentical(expected[k], actual[k], $"lead {k} of {leads}, block {block}");
+            Assert.Equal(lone[k].StateSnapshot(), cascades[k].StateSnapshot());
+        }
+    }
+
+    [Fact]
+    public void ProcessFour_RefusesOtherLaneCountsAndUnequalCascades()
+    {
+        var two = new[] { new EcgConditioner(360).Filter, new EcgConditioner(360).Filter };
+        Assert.Throws<ArgumentException>(() => BiquadCascade.ProcessFour(two, new float[20], 10));
+        var mixed = new[] { new EcgConditioner(360).Filter, new EcgConditioner(360).Filter, new EcgConditioner(128).Filter };
+        Assert.Throws<ArgumentException>(() => BiquadCascade.ProcessFour(mixed, new float[30], 10));
+    }
+
+    // The first 60 s of four leads (207 MLII and V1, 208 MLII and V1), then the same leads inverted for leads five to
+    // seven; with gaps: one at the very start of lead 1, one across many block edges on lead 2 and one on every lead.
+    private static float[][] Leads(int leads, bool withGaps)
+    {
+        const int n = 60 * 360;
+        var records = new[] { ReferenceRecord.Load("mitdb", "207"), ReferenceRecord.Load("mitdb", "208") };
+        var four = records.SelectMany(r => r.Leads).Select(l => l.AsSpan(0, n).ToArray()).ToArray();
+        var result = new float[leads][];
+        for (var k = 0; k < leads; k++)
+        {
+            result[k] = k < 4 ? (float[])four[k].Clone() : four[k - 4].Select(v => -v).ToArray();
+        }
+
+        if (withGaps)
+        {
+            result[1].AsSpan(0, 500).Fill(float.NaN);
+            result[2].AsSpan(3001, 2500).Fill(float.NaN);
+            foreach (var lead in result)
+            {
+                lead.AsSpan(12000, 77).Fill(float.NaN);
+            }
+        }
+
+        return result;
+    }
+
+    private static void AssertBitIdentical(float[] expected, float[] actual, string what)
+    {
+        Assert.Equal(expected.Length, actual.Length);
+        for (var i = 0; i < expected.Length; i++)
+        {
+            if (BitConverter.SingleToInt32Bits(expected[i]) != BitConverter.SingleToInt32Bits(actual[i]))
+            {
+                Assert.Fail($"{what}: sample {i} is {actual[i]:R}, alone {expected[i]:R}");
+            }
+        }
+    }
+}
