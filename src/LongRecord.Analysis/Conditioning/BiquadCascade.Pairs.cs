@@ -1,6 +1,4 @@
-using System.Runtime.InteropServices;
 using System.Runtime.Intrinsics;
-using System.Runtime.Intrinsics.X86;
 
 namespace LongRecord.Analysis.Conditioning;
 
@@ -15,11 +13,12 @@ public sealed partial class BiquadCascade
     /// Each section's recursion is a chain of dependent multiply-adds that leaves the processor idle between its steps;
     /// two signals in the two lanes of one vector share the chain's latency (about 2× faster for two leads). Each lane
     /// does the scalar loop's operations in its order (no fused multiply-add), so the rounding is the same. The samples
-    /// go into the lanes and back four at a time (interleaved as floats, converted four to a 256-bit vector, outside the
-    /// recursion), as in <see cref="ProcessFour"/>: against loading and storing them lane by lane inside it, 24 h of two
-    /// leads at 250 Hz went from 0.103–0.107 s to 0.099–0.100 s per cascade (best of 7, three sections or two), which is
-    /// the recursion's own bound: each sample waits on the previous one through a multiply and three additions. Without
-    /// AVX the samples go in and out one at a time.
+    /// are loaded and stored lane by lane inside the recursion. Moving them into and out of the lanes four at a time
+    /// outside it, as <see cref="ProcessFour"/> does, was tried and not kept: 24 h of two leads at 250 Hz (best of 15,
+    /// alternated) took 0.091–0.092 s against 0.094–0.096 s for the three-section conditioner cascade and
+    /// 0.089–0.090 s against 0.088–0.089 s for the detector's two-section band-pass, and the beats stage did not
+    /// change beyond its noise. The loads are not what this loop waits on: each sample waits on the previous one
+    /// through a multiply and three additions in each section.
     /// </remarks>
     public void ProcessWith(BiquadCascade other, Span<float> first, Span<float> second)
     {
@@ -40,72 +39,26 @@ public sealed partial class BiquadCascade
             return;
         }
 
-        Span<Vector128<double>> work = stackalloc Vector128<double>[WorkSamples];
+        Span<double> a = stackalloc double[WorkSamples];
+        Span<double> b = stackalloc double[WorkSamples];
         for (var done = 0; done < first.Length; done += WorkSamples)
         {
             var n = Math.Min(WorkSamples, first.Length - done);
-            var x = work[..n];
-            var a = first.Slice(done, n);
-            var b = second.Slice(done, n);
-            Interleave(a, b, x);
+            var x = a[..n];
+            var y = b[..n];
+            Widen(first.Slice(done, n), x);
+            Widen(second.Slice(done, n), y);
             if (Sections == 2)
             {
-                PairTwo(other, x);
+                PairTwo(other, x, y);
             }
             else
             {
-                PairThree(other, x);
+                PairThree(other, x, y);
             }
 
-            Deinterleave(x, a, b);
-        }
-    }
-
-    // Sample i of the two signals into the two lanes of x[i], widened to double (exact). Four samples of each at a
-    // time: the floats interleaved, then converted four to a 256-bit vector (two of x's elements).
-    private static void Interleave(ReadOnlySpan<float> a, ReadOnlySpan<float> b, Span<Vector128<double>> x)
-    {
-        var i = 0;
-        if (Avx.IsSupported)
-        {
-            var d = MemoryMarshal.Cast<Vector128<double>, double>(x);
-            for (; i + 4 <= x.Length; i += 4)
-            {
-                var fa = Vector128.Create(a.Slice(i, 4));
-                var fb = Vector128.Create(b.Slice(i, 4));
-                Avx.ConvertToVector256Double(Sse.UnpackLow(fa, fb)).CopyTo(d.Slice(2 * i, 4));
-                Avx.ConvertToVector256Double(Sse.UnpackHigh(fa, fb)).CopyTo(d.Slice(2 * i + 4, 4));
-            }
-        }
-
-        for (; i < x.Length; i++)
-        {
-            x[i] = Vector128.Create(a[i], (double)b[i]);
-        }
-    }
-
-    // The lanes of x back into the two signals, each rounded to the nearest float as a (float) cast rounds: four
-    // samples of each at a time, two of x's elements converted together, then the floats taken apart.
-    private static void Deinterleave(ReadOnlySpan<Vector128<double>> x, Span<float> a, Span<float> b)
-    {
-        var i = 0;
-        if (Avx.IsSupported)
-        {
-            var d = MemoryMarshal.Cast<Vector128<double>, double>(x);
-            for (; i + 4 <= x.Length; i += 4)
-            {
-                var low = Avx.ConvertToVector128Single(Vector256.Create(d.Slice(2 * i, 4)));
-                var high = Avx.ConvertToVector128Single(Vector256.Create(d.Slice(2 * i + 4, 4)));
-                // Lanes 0 and 2 of each are the first signal's, lanes 1 and 3 the second's.
-                Sse.Shuffle(low, high, 0b10_00_10_00).CopyTo(a.Slice(i, 4));
-                Sse.Shuffle(low, high, 0b11_01_11_01).CopyTo(b.Slice(i, 4));
-            }
-        }
-
-        for (; i < x.Length; i++)
-        {
-            a[i] = (float)x[i].GetElement(0);
-            b[i] = (float)x[i].GetElement(1);
+            Narrow(x, first.Slice(done, n));
+            Narrow(y, second.Slice(done, n));
         }
     }
 
@@ -126,36 +79,37 @@ public sealed partial class BiquadCascade
         other._z2[s] = z2.GetElement(1);
     }
 
-    private void PairTwo(BiquadCascade other, Span<Vector128<double>> signal)
+    private void PairTwo(BiquadCascade other, Span<double> first, Span<double> second)
     {
         var p = Lanes(other, 0);
         var q = Lanes(other, 1);
         Vector128<double> u1 = p.Z1, u2 = p.Z2, v1 = q.Z1, v2 = q.Z2;
-        for (var i = 0; i < signal.Length; i++)
+        for (var i = 0; i < first.Length; i++)
         {
-            var x = signal[i];
+            var x = Vector128.Create(first[i], second[i]);
             var y = p.B0 * x + u1;
             u1 = p.B1 * x - p.A1 * y + u2;
             u2 = p.B2 * x - p.A2 * y;
             var z = q.B0 * y + v1;
             v1 = q.B1 * y - q.A1 * z + v2;
             v2 = q.B2 * y - q.A2 * z;
-            signal[i] = z;
+            first[i] = z.GetElement(0);
+            second[i] = z.GetElement(1);
         }
 
         Store(other, 0, u1, u2);
         Store(other, 1, v1, v2);
     }
 
-    private void PairThree(BiquadCascade other, Span<Vector128<double>> signal)
+    private void PairThree(BiquadCascade other, Span<double> first, Span<double> second)
     {
         var p = Lanes(other, 0);
         var q = Lanes(other, 1);
         var r = Lanes(other, 2);
         Vector128<double> u1 = p.Z1, u2 = p.Z2, v1 = q.Z1, v2 = q.Z2, w1 = r.Z1, w2 = r.Z2;
-        for (var i = 0; i < signal.Length; i++)
+        for (var i = 0; i < first.Length; i++)
         {
-            var x = signal[i];
+            var x = Vector128.Create(first[i], second[i]);
             var y = p.B0 * x + u1;
             u1 = p.B1 * x - p.A1 * y + u2;
             u2 = p.B2 * x - p.A2 * y;
@@ -165,7 +119,8 @@ public sealed partial class BiquadCascade
             var o = r.B0 * z + w1;
             w1 = r.B1 * z - r.A1 * o + w2;
             w2 = r.B2 * z - r.A2 * o;
-            signal[i] = o;
+            first[i] = o.GetElement(0);
+            second[i] = o.GetElement(1);
         }
 
         Store(other, 0, u1, u2);

@@ -13,7 +13,7 @@ public sealed class TwoLaneCascadeTests
 {
     // 360 Hz: the conditioner's cascade has three sections (high-pass, 50 and 60 Hz notches); read as 128 Hz samples it
     // has two (no 60 Hz notch above 0.45 of the rate). Two leads are one pair; six are a group of four and a pair.
-    // Block 1 and 7 leave samples outside the four-at-a-time transposes; 1000 crosses the 512-sample work buffer.
+    // Blocks of 1, 7 and 1000 samples (1000 crosses the cascade's 512-sample work buffer).
     public static TheoryData<int, int, double> LeadsBlocksRates()
     {
         var data = new TheoryData<int, int, double>();
