@@ -1,9 +1,6 @@
 using LongRecord.Analysis.Conditioning;
-using LongRecord.Analysis.Tests.Support;
 
-// Not LongRecord.Analysis.Tests.Conditioning (the folder): a namespace of that name would capture the relative name
-// Conditioning.EcgConditioner that Quality/MonitorContractTests.cs uses.
-namespace LongRecord.Analysis.Tests;
+namespace LongRecord.Analysis.Tests.Conditioning;
 
 /// <summary>
 /// Three to seven leads filtered together in the lanes of one vector give every lead's samples bit for bit as the lead
@@ -36,7 +33,7 @@ public sealed class FourLaneCascadeTests
     [MemberData(nameof(LeadsBlocksRates))]
     public void LeadSet_AnyBlockSize_EqualsEachLeadAlone(int leads, int block, double rateHz)
     {
-        var raw = Leads(leads, withGaps: true);
+        var raw = CascadeLeads.Read(leads, withGaps: true);
         // Each lead alone in the same blocks (a recording that starts inside a gap settles the filter on its first block).
         var alone = raw.Select(_ => new EcgConditioner(rateHz)).ToArray();
         var expected = raw.Select((l, k) =>
@@ -71,7 +68,7 @@ public sealed class FourLaneCascadeTests
 
         for (var k = 0; k < leads; k++)
         {
-            AssertBitIdentical(expected[k], actual[k], $"lead {k} of {leads}, block {block}, {rateHz} Hz");
+            CascadeLeads.AssertBitIdentical(expected[k], actual[k], $"lead {k} of {leads}, block {block}, {rateHz} Hz");
         }
 
         // The float outputs rarely show a last-bit difference of the double arithmetic; the filter states do.
@@ -93,7 +90,7 @@ public sealed class FourLaneCascadeTests
         // The detector's band-pass (5–15 Hz, second-order Butterworth band-pass: two sections), NWaves frequencies
         // divided by the sampling rate. Held samples in place of gaps, as the detector feeds it.
         const double fs = 360;
-        var raw = Leads(leads, withGaps: false);
+        var raw = CascadeLeads.Read(leads, withGaps: false);
         BiquadCascade Design() => new(new NWaves.Filters.Butterworth.BandPassFilter(5 / fs, 15 / fs, 2).Tf);
         var lone = raw.Select(_ => Design()).ToArray();
         var expected = raw.Select((l, k) =>
@@ -131,7 +128,7 @@ public sealed class FourLaneCascadeTests
 
         for (var k = 0; k < leads; k++)
         {
-            AssertBitIdentical(expected[k], actual[k], $"lead {k} of {leads}, block {block}");
+            CascadeLeads.AssertBitIdentical(expected[k], actual[k], $"lead {k} of {leads}, block {block}");
             Assert.Equal(lone[k].StateSnapshot(), cascades[k].StateSnapshot());
         }
     }
@@ -143,43 +140,5 @@ public sealed class FourLaneCascadeTests
         Assert.Throws<ArgumentException>(() => BiquadCascade.ProcessFour(two, new float[20], 10));
         var mixed = new[] { new EcgConditioner(360).Filter, new EcgConditioner(360).Filter, new EcgConditioner(128).Filter };
         Assert.Throws<ArgumentException>(() => BiquadCascade.ProcessFour(mixed, new float[30], 10));
-    }
-
-    // The first 60 s of four leads (207 MLII and V1, 208 MLII and V1), then the same leads inverted for leads five to
-    // seven; with gaps: one at the very start of lead 1, one across many block edges on lead 2 and one on every lead.
-    private static float[][] Leads(int leads, bool withGaps)
-    {
-        const int n = 60 * 360;
-        var records = new[] { ReferenceRecord.Load("mitdb", "207"), ReferenceRecord.Load("mitdb", "208") };
-        var four = records.SelectMany(r => r.Leads).Select(l => l.AsSpan(0, n).ToArray()).ToArray();
-        var result = new float[leads][];
-        for (var k = 0; k < leads; k++)
-        {
-            result[k] = k < 4 ? (float[])four[k].Clone() : four[k - 4].Select(v => -v).ToArray();
-        }
-
-        if (withGaps)
-        {
-            result[1].AsSpan(0, 500).Fill(float.NaN);
-            result[2].AsSpan(3001, 2500).Fill(float.NaN);
-            foreach (var lead in result)
-            {
-                lead.AsSpan(12000, 77).Fill(float.NaN);
-            }
-        }
-
-        return result;
-    }
-
-    private static void AssertBitIdentical(float[] expected, float[] actual, string what)
-    {
-        Assert.Equal(expected.Length, actual.Length);
-        for (var i = 0; i < expected.Length; i++)
-        {
-            if (BitConverter.SingleToInt32Bits(expected[i]) != BitConverter.SingleToInt32Bits(actual[i]))
-            {
-                Assert.Fail($"{what}: sample {i} is {actual[i]:R}, alone {expected[i]:R}");
-            }
-        }
     }
 }

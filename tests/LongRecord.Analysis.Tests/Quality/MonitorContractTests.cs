@@ -88,7 +88,7 @@ public sealed class MonitorContractTests
         leads[1].AsSpan((int)(20 * fs), (int)(10 * fs)).Fill(0.1f);
         var monitor = new SignalQualityMonitor(fs, 2, rails);
         var n = leads[0].Length;
-        var conditioned = leads.Select(l => { var c = (float[])l.Clone(); new Conditioning.EcgConditioner(fs).Process(c); return c; }).ToArray();
+        var conditioned = leads.Select(l => { var c = (float[])l.Clone(); new LongRecord.Analysis.Conditioning.EcgConditioner(fs).Process(c); return c; }).ToArray();
         var raw = new float[2 * n];
         var cond = new float[2 * n];
         for (var k = 0; k < 2; k++)
