@@ -54,4 +54,29 @@ internal static class CascadeLeads
             }
         }
     }
+
+    // The leads through process in blocks of block samples, lead-major (lead k at k × count), as the pipeline feeds them.
+    public static float[][] InBlocks(float[][] raw, int block, Action<Span<float>, int> process)
+    {
+        var leads = raw.Length;
+        var n = raw[0].Length;
+        var buffer = new float[leads * block];
+        var result = raw.Select(_ => new float[n]).ToArray();
+        for (var start = 0; start < n; start += block)
+        {
+            var count = Math.Min(block, n - start);
+            for (var k = 0; k < leads; k++)
+            {
+                raw[k].AsSpan(start, count).CopyTo(buffer.AsSpan(k * count, count));
+            }
+
+            process(buffer, count);
+            for (var k = 0; k < leads; k++)
+            {
+                buffer.AsSpan(k * count, count).CopyTo(result[k].AsSpan(start, count));
+            }
+        }
+
+        return result;
+    }
 }

@@ -10,74 +10,7 @@ namespace LongRecord.Analysis.Tests.Conditioning;
 /// </summary>
 public sealed class FourLaneCascadeTests
 {
-    // 360 Hz: the conditioner's cascade has three sections (high-pass, 50 and 60 Hz notches). Read as 128 Hz samples it
-    // has two (no 60 Hz notch above 0.45 of the rate), and the detector's 5–15 Hz band-pass has two.
-    public static TheoryData<int, int, double> LeadsBlocksRates()
-    {
-        var data = new TheoryData<int, int, double>();
-        foreach (var leads in new[] { 3, 4, 5, 7 })
-        {
-            foreach (var block in new[] { 1, 7, 1000 })
-            {
-                foreach (var rate in new[] { 360.0, 128.0 })
-                {
-                    data.Add(leads, block, rate);
-                }
-            }
-        }
-
-        return data;
-    }
-
-    [Theory]
-    [MemberData(nameof(LeadsBlocksRates))]
-    public void LeadSet_AnyBlockSize_EqualsEachLeadAlone(int leads, int block, double rateHz)
-    {
-        var raw = CascadeLeads.Read(leads, withGaps: true);
-        // Each lead alone in the same blocks (a recording that starts inside a gap settles the filter on its first block).
-        var alone = raw.Select(_ => new EcgConditioner(rateHz)).ToArray();
-        var expected = raw.Select((l, k) =>
-        {
-            var c = (float[])l.Clone();
-            for (var start = 0; start < c.Length; start += block)
-            {
-                alone[k].Process(c.AsSpan(start, Math.Min(block, c.Length - start)));
-            }
-
-            return c;
-        }).ToArray();
-
-        var set = new LeadSetConditioner(rateHz, leads);
-        var n = raw[0].Length;
-        var buffer = new float[leads * block];
-        var actual = raw.Select(_ => new float[n]).ToArray();
-        for (var start = 0; start < n; start += block)
-        {
-            var count = Math.Min(block, n - start);
-            for (var k = 0; k < leads; k++)
-            {
-                raw[k].AsSpan(start, count).CopyTo(buffer.AsSpan(k * count, count));
-            }
-
-            set.Process(buffer, count);
-            for (var k = 0; k < leads; k++)
-            {
-                buffer.AsSpan(k * count, count).CopyTo(actual[k].AsSpan(start, count));
-            }
-        }
-
-        for (var k = 0; k < leads; k++)
-        {
-            CascadeLeads.AssertBitIdentical(expected[k], actual[k], $"lead {k} of {leads}, block {block}, {rateHz} Hz");
-        }
-
-        // The float outputs rarely show a last-bit difference of the double arithmetic; the filter states do.
-        for (var k = 0; k < leads; k++)
-        {
-            Assert.Equal(alone[k].Filter.StateSnapshot(), set.LeadFilter(k).StateSnapshot());
-        }
-    }
-
+    // The conditioner of three to seven leads: LeadSetConditionerTests. Here the detector's band-pass and the kernel.
     [Theory]
     [InlineData(3, 1)]
     [InlineData(3, 7)]

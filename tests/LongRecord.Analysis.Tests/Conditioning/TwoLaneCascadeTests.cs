@@ -11,52 +11,8 @@ namespace LongRecord.Analysis.Tests.Conditioning;
 /// </summary>
 public sealed class TwoLaneCascadeTests
 {
-    // 360 Hz: the conditioner's cascade has three sections (high-pass, 50 and 60 Hz notches); read as 128 Hz samples it
-    // has two (no 60 Hz notch above 0.45 of the rate). Two leads are one pair; six are a group of four and a pair.
-    // Blocks of 1, 7 and 1000 samples (1000 crosses the cascade's 512-sample work buffer).
-    public static TheoryData<int, int, double> LeadsBlocksRates()
-    {
-        var data = new TheoryData<int, int, double>();
-        foreach (var leads in new[] { 2, 6 })
-        {
-            foreach (var block in new[] { 1, 7, 1000 })
-            {
-                foreach (var rate in new[] { 360.0, 128.0 })
-                {
-                    data.Add(leads, block, rate);
-                }
-            }
-        }
-
-        return data;
-    }
-
-    [Theory]
-    [MemberData(nameof(LeadsBlocksRates))]
-    public void LeadSet_AnyBlockSize_EqualsEachLeadAlone(int leads, int block, double rateHz)
-    {
-        var raw = CascadeLeads.Read(leads, withGaps: true);
-        var alone = raw.Select(_ => new EcgConditioner(rateHz)).ToArray();
-        var expected = raw.Select((l, k) =>
-        {
-            var c = (float[])l.Clone();
-            for (var start = 0; start < c.Length; start += block)
-            {
-                alone[k].Process(c.AsSpan(start, Math.Min(block, c.Length - start)));
-            }
-
-            return c;
-        }).ToArray();
-
-        var set = new LeadSetConditioner(rateHz, leads);
-        var actual = InBlocks(raw, block, set.Process);
-        for (var k = 0; k < leads; k++)
-        {
-            CascadeLeads.AssertBitIdentical(expected[k], actual[k], $"lead {k} of {leads}, block {block}, {rateHz} Hz");
-            Assert.Equal(alone[k].Filter.StateSnapshot(), set.LeadFilter(k).StateSnapshot());
-        }
-    }
-
+    // The conditioner of two and six leads (a pair; a group of four and a pair): LeadSetConditionerTests. Here the
+    // detector's band-pass and the kernel.
     [Theory]
     [InlineData(1)]
     [InlineData(7)]
@@ -84,7 +40,7 @@ public sealed class TwoLaneCascadeTests
         Assert.Equal(2, first.Sections);
         first.SettleAt(raw[0][0]);
         second.SettleAt(raw[1][0]);
-        var actual = InBlocks(raw, block, (buffer, count) => first.ProcessWith(second, buffer[..count], buffer.Slice(count, count)));
+        var actual = CascadeLeads.InBlocks(raw, block, (buffer, count) => first.ProcessWith(second, buffer[..count], buffer.Slice(count, count)));
         CascadeLeads.AssertBitIdentical(expected[0], actual[0], $"first lane, block {block}");
         CascadeLeads.AssertBitIdentical(expected[1], actual[1], $"second lane, block {block}");
         Assert.Equal(lone[0].StateSnapshot(), first.StateSnapshot());
@@ -121,30 +77,5 @@ public sealed class TwoLaneCascadeTests
         var two = new EcgConditioner(128).Filter;
         Assert.Throws<ArgumentException>(() => three.ProcessWith(two, new float[10], new float[10]));
         Assert.Throws<ArgumentException>(() => three.ProcessWith(new EcgConditioner(360).Filter, new float[10], new float[9]));
-    }
-
-    // The leads through process in blocks of block samples, lead-major (lead k at k × count), as the pipeline feeds them.
-    private static float[][] InBlocks(float[][] raw, int block, Action<Span<float>, int> process)
-    {
-        var leads = raw.Length;
-        var n = raw[0].Length;
-        var buffer = new float[leads * block];
-        var result = raw.Select(_ => new float[n]).ToArray();
-        for (var start = 0; start < n; start += block)
-        {
-            var count = Math.Min(block, n - start);
-            for (var k = 0; k < leads; k++)
-            {
-                raw[k].AsSpan(start, count).CopyTo(buffer.AsSpan(k * count, count));
-            }
-
-            process(buffer, count);
-            for (var k = 0; k < leads; k++)
-            {
-                buffer.AsSpan(k * count, count).CopyTo(result[k].AsSpan(start, count));
-            }
-        }
-
-        return result;
     }
 }
