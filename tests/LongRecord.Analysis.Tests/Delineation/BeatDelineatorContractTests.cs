@@ -66,7 +66,7 @@ public sealed class BeatDelineatorContractTests
 
     /// <summary>DEVELOPERS.md: no per-sample (here: per-beat) allocation once the largest window has been seen.</summary>
     [Fact]
-    public void Delineate_AfterFirstWindow_AllocatesNothing()
+    public void Delineate_SecondPassOverTheBeats_AllocatesNothing()
     {
         var (leads, r, _) = s_recording.Value;
         var delineator = new BeatDelineator(Fs, 2);
@@ -82,9 +82,16 @@ public sealed class BeatDelineatorContractTests
             delineator.Delineate(window, 301, 125, new DelineationContext((int)(r[i - 1] - start), (int)(r[i + 1] - start), 0));
         }
 
-        Run(1);
+        // A first pass over every beat (buffers grown, every path taken once; under heavy load the runtime's tiering
+        // once showed 40 bytes on this thread during the first pass), then a second pass over the same beats must
+        // allocate nothing at all.
+        for (var i = 1; i < r.Length - 2; i++)
+        {
+            Run(i);
+        }
+
         var before = GC.GetAllocatedBytesForCurrentThread();
-        for (var i = 2; i < r.Length - 2; i++)
+        for (var i = 1; i < r.Length - 2; i++)
         {
             Run(i);
         }
