@@ -64,7 +64,7 @@ internal static class CandidateDescriber
             Onset = facts.Onset,
             Offset = facts.Offset,
             Atrial = facts.Atrial,
-            Evidence = evidence,
+            Evidence = TachycardiaClassifier.RestateRrEvidence(evidence, facts, settings.Episodes),
             Confidence = confidence,
             // A broad-complex tachycardia may be ventricular, whatever the rhythm around it (AF with broad complexes too).
             Urgent = finalKind is EpisodeKinds.BroadTachycardia || (width == QrsWidth.Broad && facts.MeanBpm >= settings.Episodes.TachycardiaRateBpm),

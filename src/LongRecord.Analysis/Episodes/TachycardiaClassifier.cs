@@ -20,10 +20,10 @@ internal static class TachycardiaClassifier
         var e = new List<string>();
         var (width, qrsMs) = Width(f, s);
         e.Add(width == QrsWidth.Unknown ? "width unknown" : Invariant($"QRS {qrsMs:0} ms {(width == QrsWidth.Broad ? "broad" : "narrow")} ({WidthSources(f)})"));
-        e.Add(Invariant($"rate {f.MeanBpm:0} bpm (median {f.MedianBpm:0})"));
+        e.Add(RateText(f));
         var irregular = f.Regularity.SuccessiveChange > s.IrregularRrChange;
-        e.Add(Invariant($"{(irregular ? "irregular" : "regular")} (RR change {f.Regularity.SuccessiveChange:0.000}, CV {f.Regularity.Cv:0.000})"));
-        e.Add($"onset {f.Onset.Type}{(f.Onset.Trigger != "none" ? $" after a {f.Onset.Trigger} beat" : "")}");
+        e.Add(RegularityText(f, s));
+        e.Add(OnsetText(f));
         if (!double.IsNaN(f.Atrial.PBeforeShare))
         {
             e.Add(Invariant($"P before QRS in {100 * f.Atrial.PBeforeShare:0} %"));
@@ -57,6 +57,32 @@ internal static class TachycardiaClassifier
         var (kind, confidence) = Decide(f, s, width, irregular, e);
         return (kind, width, qrsMs, string.Join("; ", e), Math.Clamp(confidence, 0, 1));
     }
+
+    /// <summary>
+    /// The evidence of an episode whose extent changed after it was classified: the parts measured from its RR
+    /// intervals (rate, regularity, onset) restated from <paramref name="f"/>, the new extent's facts; the kind's reasons
+    /// and the signal's findings stand.
+    /// </summary>
+    public static string RestateRrEvidence(string evidence, ClassifierFacts f, EpisodeSettings s)
+    {
+        var parts = evidence.Split("; ");
+        for (var i = 0; i < parts.Length; i++)
+        {
+            parts[i] = parts[i].StartsWith("rate ", StringComparison.Ordinal) ? RateText(f)
+                : parts[i].StartsWith("regular (", StringComparison.Ordinal) || parts[i].StartsWith("irregular (", StringComparison.Ordinal) ? RegularityText(f, s)
+                : parts[i].StartsWith("onset ", StringComparison.Ordinal) ? OnsetText(f)
+                : parts[i];
+        }
+
+        return string.Join("; ", parts);
+    }
+
+    private static string RateText(ClassifierFacts f) => Invariant($"rate {f.MeanBpm:0} bpm (median {f.MedianBpm:0})");
+
+    private static string RegularityText(ClassifierFacts f, EpisodeSettings s) => Invariant(
+        $"{(f.Regularity.SuccessiveChange > s.IrregularRrChange ? "irregular" : "regular")} (RR change {f.Regularity.SuccessiveChange:0.000}, CV {f.Regularity.Cv:0.000})");
+
+    private static string OnsetText(ClassifierFacts f) => $"onset {f.Onset.Type}{(f.Onset.Trigger != "none" ? $" after a {f.Onset.Trigger} beat" : "")}";
 
     // The beats' own widths first; the mean complex's only when the beats carry none.
     // Where the width came from, in words: the beats' median and the mean complex's, each only when measured.

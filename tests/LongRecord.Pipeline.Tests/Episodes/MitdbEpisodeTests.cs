@@ -86,6 +86,36 @@ public sealed class MitdbEpisodeTests(ITestOutputHelper output)
         Assert.True(found >= 0.80 * total, line);
     }
 
+    [Fact]
+    public void EveryTachycardiaEpisode_EvidenceStatesTheOnsetItsOnsetFieldHolds()
+    {
+        // One episode, one story: the evidence a reviewer reads names the onset type that the onset column gives, also
+        // for AF whose extent the rhythm stage refines after classification (all 48 records' episodes).
+        var checkedCount = 0;
+        var wrong = new List<string>();
+        foreach (var (run, _, _) in s_records.Value)
+        {
+            foreach (var e in run.Result.Episodes)
+            {
+                var at = e.Evidence.IndexOf("onset ", StringComparison.Ordinal);
+                if (at < 0 || e.Onset is null)
+                {
+                    continue;
+                }
+
+                checkedCount++;
+                var stated = e.Evidence[(at + 6)..].Split(';', ' ')[0];
+                if (stated != e.Onset.Type)
+                {
+                    wrong.Add(Invariant($"{run.Record} {e.Kind} {e.StartS:0.0} s: evidence onset {stated}, field {e.Onset.Type}"));
+                }
+            }
+        }
+
+        Assert.True(checkedCount > 50, $"only {checkedCount} episodes with an onset in their evidence");
+        Assert.True(wrong.Count == 0, string.Join("\n", wrong.Take(10)));
+    }
+
     private static bool Bbb(string record) => s_records.Value.First(r => r.Run.Record == record).Bbb;
 
     private static (int Found, int Total, List<string> Misses) Overlapped(Func<ReferenceStretch, bool> take, Func<ReferenceStretch, Episode, bool> counts)
