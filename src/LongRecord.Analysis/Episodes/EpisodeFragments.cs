@@ -135,6 +135,7 @@ internal static class EpisodeFragments
         var facts = host.Facts with
         {
             MeanBpm = t.MeanBpm(Math.Max(0, first - 1), last),
+            MedianBpm = 60 / OnsetOffset.MedianRr(t, first, last),
             Onset = OnsetOffset.Onset(t, first, last, settings.Episodes),
             Offset = OnsetOffset.Offset(t, first, last, settings.Episodes),
             Regularity = RrRegularity.Of(t, first, last),

@@ -108,6 +108,7 @@ internal static class FlutterExtent
                 var facts = d.Facts with
                 {
                     MeanBpm = t.MeanBpm(Math.Max(0, d.First - 1), d.Last),
+                    MedianBpm = 60 / OnsetOffset.MedianRr(t, d.First, d.Last),
                     Onset = OnsetOffset.Onset(t, d.First, d.Last, settings.Episodes),
                     Offset = OnsetOffset.Offset(t, d.First, d.Last, settings.Episodes),
                     Regularity = RrRegularity.Of(t, d.First, d.Last),
