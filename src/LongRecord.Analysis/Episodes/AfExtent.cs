@@ -5,13 +5,18 @@ namespace LongRecord.Analysis.Episodes;
 /// <summary>
 /// The rhythm stage finds AF from the RR intervals, so its episodes can start a few beats late and end a few beats
 /// late (its windows need irregular intervals on both sides). With P waves judged on the signal, an AF episode's ends
-/// are moved to the P waves: up to four beats with a P wave at either end are left out, and up to four beats without
-/// one just before it are taken in; a steady tail of sinus beats (see SteadyTail) is left out; a last interval over 1.5 times the episode's median RR that leads into sinus rhythm
+/// are moved to the P waves: up to four beats with a P wave at either end are left out, and up to twelve beats without
+/// one just before it are taken in (a lone beat with a P among them too); a steady tail of sinus beats (see SteadyTail) is left out; a last interval over 1.5 times the episode's median RR that leads into sinus rhythm
 /// (the pause as AF stops) is left out. Nothing moves when the beats carry no P-wave judgement.
 /// </summary>
 internal static class AfExtent
 {
     private const int MaxBeats = 4;
+
+    // Beats without a P wave just before the rhythm stage's AF are taken in up to this many: its 32-interval windows
+    // can flag AF a dozen beats after the atria began to fibrillate, and a shorter reach left the first P-less beats of
+    // the demo day's AF outside as a three-beat "junctional rhythm" (our choice, no source).
+    private const int LeadInBeats = 12;
     private const double LongFactor = 1.5;
 
     // Our choice: sinus RR after AF in the synthetic catalogue stay within 3 %; 6 % as the episodes' steady fraction.
@@ -28,8 +33,16 @@ internal static class AfExtent
 
         if (f == first)
         {
-            for (var k = 0; k < MaxBeats && f > 0 && t.HasRr(f) && t[f - 1].PWave == 0 && t[f - 1].Class != BeatClass.V; k++)
+            for (var k = 0; k < LeadInBeats && f > 0 && t.HasRr(f) && t[f - 1].Class != BeatClass.V; k++)
             {
+                // A lone beat with a P wave between beats without one is a fibrillatory wave read as P: it does not
+                // end the lead-in; two in a row (sinus rhythm) do.
+                var lone = t[f - 1].PWave == 1 && f > 1 && t[f - 2].PWave == 0 && t[f].PWave == 0;
+                if (t[f - 1].PWave != 0 && !lone)
+                {
+                    break;
+                }
+
                 f--;
             }
         }

@@ -10,7 +10,7 @@ namespace LongRecord.Analysis.Episodes;
 /// unknown-width <c>unclassified-tachycardia</c>); a sinus tachycardia and its narrow regular pieces (not its runs of
 /// PACs, which are episodes of their own); a broad-complex tachycardia and its <c>ve-run</c> and broad pieces. A
 /// <c>ve-run</c> inside AF or a sinus tachycardia stays its own episode, as does anything beside AF (AF is the rhythm
-/// stage's, with its own extent). Two episodes of one ectopic tachycardia kind that near are one, whatever their
+/// stage's, with its own extent); a narrow junctional or ectopic atrial rhythm wholly inside AF is part of it. Two episodes of one ectopic tachycardia kind that near are one, whatever their
 /// lengths. A candidate of fewer than the minimum run of beats is no episode.
 /// </summary>
 internal static class EpisodeFragments
@@ -89,6 +89,14 @@ internal static class EpisodeFragments
         if (host.RawKind == EpisodeKinds.BroadTachycardia)
         {
             return kind == EpisodeKinds.VeRun || (piece.Episode.Width == QrsWidth.Broad && kind == EpisodeKinds.UnclassifiedTachycardia);
+        }
+
+        if (host.RawKind is EpisodeKinds.Af or EpisodeKinds.AfBrief)
+        {
+            // A slow narrow "ectopic rhythm" wholly inside AF is AF's own first or irregular beats, labelled S before
+            // the rhythm was known to be AF (in AF, conducted beats are not supraventricular ectopics).
+            return narrowPiece && kind is EpisodeKinds.JunctionalRhythm or EpisodeKinds.EctopicAtrialRhythm
+                && piece.First >= host.First && piece.Last <= host.Last;
         }
 
         return false;

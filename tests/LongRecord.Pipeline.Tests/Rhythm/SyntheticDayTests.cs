@@ -15,13 +15,18 @@ namespace LongRecord.Pipeline.Tests.Rhythm;
 /// </summary>
 public sealed class SyntheticDayTests(ITestOutputHelper output)
 {
-    [Fact]
-    public void Demo24h_DetectedBeats_AfBurdenWithinHalfAPoint_PauseCountExact()
+    private static readonly Lazy<(SyntheticRecording Rec, RecordingAnalysis A)> s_day = new(() =>
     {
         using var folder = new TempFolder("day");
         var rec = SyntheticRecording.Create(ScenarioLoader.Load(Scenarios.Path("demo-24h")));
         var paths = SyntheticRecordingExport.Write(rec, folder.Path("day.edf"));
-        var a = RecordingSummariser.Analyse(paths.Edf);
+        return (rec, RecordingSummariser.Analyse(paths.Edf));
+    });
+
+    [Fact]
+    public void Demo24h_DetectedBeats_AfBurdenWithinHalfAPoint_PauseCountExact()
+    {
+        var (rec, a) = s_day.Value;
 
         var truthAfS = rec.Truth.Rhythms.Where(r => r.Kind == "af" && !r.IsEpisode).Sum(r => r.DurationS);
         var truthBurden = 100 * truthAfS / a.Rhythm.Summary.AnalysableS;
@@ -34,5 +39,24 @@ public sealed class SyntheticDayTests(ITestOutputHelper output)
         FiguresReport.Add("13 rhythm synthetic day", line);
         Assert.InRange(ours.AfBurdenPercent, truthBurden - 0.5, truthBurden + 0.5);
         Assert.Equal(truthPauses, ours.PauseCount);
+    }
+
+    [Fact]
+    public void Demo24h_AfEpisode_StartsWithTheTruthsAf_AbruptOnset_NoSupraventricularPieceInside()
+    {
+        // Episodes issue: onset and offset measured, one kind per episode. The truth's AF segment of the demo day begins
+        // abruptly (the synthesiser's truth); our af episode must begin within 2 s of it, read the onset as abrupt, and
+        // hold no narrow "ectopic rhythm" of its own first beats inside it.
+        var (rec, a) = s_day.Value;
+        var truth = rec.Truth.Rhythms.Single(r => r.Kind == "af" && !r.IsEpisode);
+        var af = a.Episodes.Episodes.Where(e => e.Kind == "af" && e.StartS < truth.EndS && e.EndS > truth.StartS).ToList();
+        var line = string.Create(CultureInfo.InvariantCulture,
+            $"demo-24h af episode(s) {string.Join(", ", af.Select(e => $"{e.StartS:F1}-{e.EndS:F1} s onset {e.Onset?.Type}"))} against truth {truth.StartS:F1}-{truth.EndS:F1} s");
+        output.WriteLine(line);
+        Assert.Single(af);
+        Assert.InRange(af[0].StartS, truth.StartS - 2, truth.StartS + 2);
+        Assert.Equal("abrupt", af[0].Onset?.Type);
+        var inside = a.Episodes.Episodes.Where(e => e.Kind is "junctional-rhythm" or "ectopic-atrial-rhythm" or "sve-run" && e.StartS >= af[0].StartS && e.EndS <= af[0].EndS).ToList();
+        Assert.True(inside.Count == 0, string.Join("; ", inside.Select(e => $"{e.Kind} {e.StartS:F1} s")));
     }
 }
