@@ -7,7 +7,7 @@ namespace LongRecord.Analysis.Episodes;
 /// Ventricular bigeminy (N V N V …), ventricular trigeminy (N N V N N V …) and atrial bigeminy (N S N S …): at least
 /// the minimum number of cycles in a row; an unclassifiable (Q) beat that comes early (and is broad,
 /// for a ventricular pattern) may stand for the ectopic beat when at least one of the chain's ectopic beats carries the
-/// label. One deviating cycle between two stretches of the same pattern (a missed or
+/// label. One deviating cycle between two stretches of the same pattern (each of at least two cycles; a missed or
 /// misread beat) does not break it. An episode runs from the first normal beat of its first cycle to its last
 /// ectopic beat.
 /// </summary>
@@ -58,11 +58,13 @@ internal static class BigeminyFinder
             i = last + 1;
         }
 
-        // Bridge one deviating cycle between chains of the pattern.
+        // Bridge one deviating cycle between stretches of the pattern: each side at least two cycles in a row, or
+        // isolated ectopic beats a few normal beats apart (N N N N V N N N N V …) would chain into a "trigeminy".
         var merged = new List<(int First, int Last, int Cycles)>();
+        var lastRun = 0;
         foreach (var c in chains)
         {
-            if (merged.Count > 0 && c.First - merged[^1].Last <= period + 1 && Analysable(track, merged[^1].Last, c.First))
+            if (merged.Count > 0 && lastRun >= 2 && c.Cycles >= 2 && c.First - merged[^1].Last <= period + 1 && Analysable(track, merged[^1].Last, c.First))
             {
                 merged[^1] = (merged[^1].First, c.Last, merged[^1].Cycles + c.Cycles);
             }
@@ -70,6 +72,8 @@ internal static class BigeminyFinder
             {
                 merged.Add(c);
             }
+
+            lastRun = c.Cycles;
         }
 
         foreach (var c in merged)
