@@ -257,8 +257,7 @@ public sealed partial class QrsDetector
         return true;
     }
 
-    // Band-pass of the paper, several leads at a time in the lanes of one vector (the same arithmetic as lead by lead):
-    // groups of four leads, then the rest — three as four, two as a pair, one alone.
+    // Band-pass of the paper, several leads at a time in the lanes of one vector (the same arithmetic as lead by lead).
     private void BandPass(Span<float> leads, int count)
     {
         if (_n == 0 && count > 0)
@@ -269,23 +268,7 @@ public sealed partial class QrsDetector
             }
         }
 
-        for (var k0 = 0; k0 < _leads; k0 += 4)
-        {
-            var group = Math.Min(4, _leads - k0);
-            var block = leads.Slice(k0 * count, group * count);
-            switch (group)
-            {
-                case 1:
-                    _bandPass[k0].Process(block);
-                    break;
-                case 2:
-                    _bandPass[k0].ProcessWith(_bandPass[k0 + 1], block[..count], block.Slice(count, count));
-                    break;
-                default:
-                    BiquadCascade.ProcessFour(_bandPass.AsSpan(k0, group), block, count);
-                    break;
-            }
-        }
+        BiquadCascade.ProcessLeads(_bandPass, leads, count);
     }
 
     // Derivative, squaring and moving-window integration of the paper, for one lead over a chunk whose first sample

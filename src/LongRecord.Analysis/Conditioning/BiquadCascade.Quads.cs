@@ -6,6 +6,33 @@ namespace LongRecord.Analysis.Conditioning;
 public sealed partial class BiquadCascade
 {
     /// <summary>
+    /// Filters any number of signals, lead-major in <paramref name="leadMajor"/> (signal k at k × <paramref name="count"/>),
+    /// signal k through <paramref name="cascades"/>[k], in place, as many at a time as the vector lanes take: groups of
+    /// four (<see cref="ProcessFour"/>), then the rest — three as four, two as a pair (<see cref="ProcessWith"/>), one
+    /// alone. The same results, bit for bit, as each cascade's <c>Process</c> over its own signal.
+    /// </summary>
+    public static void ProcessLeads(ReadOnlySpan<BiquadCascade> cascades, Span<float> leadMajor, int count)
+    {
+        for (var k = 0; k < cascades.Length; k += 4)
+        {
+            var group = Math.Min(4, cascades.Length - k);
+            var block = leadMajor.Slice(k * count, group * count);
+            switch (group)
+            {
+                case 1:
+                    cascades[k].Process(block);
+                    break;
+                case 2:
+                    cascades[k].ProcessWith(cascades[k + 1], block[..count], block.Slice(count, count));
+                    break;
+                default:
+                    ProcessFour(cascades.Slice(k, group), block, count);
+                    break;
+            }
+        }
+    }
+
+    /// <summary>
     /// Filters three or four signals at once, lead-major in <paramref name="leadMajor"/> (signal k at k ×
     /// <paramref name="count"/>), signal k through <paramref name="cascades"/>[k], each in place. The same results, bit
     /// for bit, as each cascade's <c>Process</c> over its own signal.

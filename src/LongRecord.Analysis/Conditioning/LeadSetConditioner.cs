@@ -3,19 +3,21 @@ namespace LongRecord.Analysis.Conditioning;
 /// <summary>
 /// Streaming conditioning of all the leads of one recording, in lead-major blocks: every lead exactly as its own
 /// <see cref="EcgConditioner"/> would condition it (the same samples, bit for bit), with the leads' filter cascades run
-/// together in the lanes of one vector: four at a time (three or four leads cost what one costs alone; see
-/// <see cref="BiquadCascade.ProcessFour"/>), two for a group of two (<see cref="BiquadCascade.ProcessWith"/>).
+/// together in the lanes of one vector (<see cref="BiquadCascade.ProcessLeads"/>: four at a time, so three or four
+/// leads cost what one costs alone).
 /// </summary>
 public sealed class LeadSetConditioner
 {
     private readonly EcgConditioner[] _leads;
     private readonly BiquadCascade[] _filters;
+    private readonly int[] _gapCounts;
 
     public LeadSetConditioner(double samplingRateHz, int leads, ConditioningSettings? settings = null)
     {
         ArgumentOutOfRangeException.ThrowIfNegativeOrZero(leads);
         _leads = new EcgConditioner[leads];
         _filters = new BiquadCascade[leads];
+        _gapCounts = new int[leads];
         for (var k = 0; k < leads; k++)
         {
             _leads[k] = new EcgConditioner(samplingRateHz, settings);
@@ -37,36 +39,17 @@ public sealed class LeadSetConditioner
             throw new ArgumentException($"the block needs {_leads.Length} × {count} samples", nameof(leadMajor));
         }
 
-        // Groups of four leads, then the rest: three as four, two as a pair, one alone.
-        Span<int> gapCounts = stackalloc int[4];
-        for (var k = 0; k < _leads.Length; k += 4)
+        // Every lead's gaps held, all the cascades run together in vector lanes, the gaps restored.
+        var gapCounts = _gapCounts;
+        for (var k = 0; k < _leads.Length; k++)
         {
-            var group = Math.Min(4, _leads.Length - k);
-            if (group == 1)
-            {
-                _leads[k].Process(leadMajor.Slice(k * count, count));
-                continue;
-            }
+            gapCounts[k] = _leads[k].HoldGaps(leadMajor.Slice(k * count, count)).Length;
+        }
 
-            for (var j = 0; j < group; j++)
-            {
-                gapCounts[j] = _leads[k + j].HoldGaps(leadMajor.Slice((k + j) * count, count)).Length;
-            }
-
-            var block = leadMajor.Slice(k * count, group * count);
-            if (group == 2)
-            {
-                _filters[k].ProcessWith(_filters[k + 1], block[..count], block.Slice(count, count));
-            }
-            else
-            {
-                BiquadCascade.ProcessFour(_filters.AsSpan(k, group), block, count);
-            }
-
-            for (var j = 0; j < group; j++)
-            {
-                EcgConditioner.RestoreGaps(block.Slice(j * count, count), _leads[k + j].HeldGaps(gapCounts[j]));
-            }
+        BiquadCascade.ProcessLeads(_filters, leadMajor, count);
+        for (var k = 0; k < _leads.Length; k++)
+        {
+            EcgConditioner.RestoreGaps(leadMajor.Slice(k * count, count), _leads[k].HeldGaps(gapCounts[k]));
         }
     }
 }
