@@ -11,42 +11,8 @@ namespace LongRecord.Analysis.Tests.Conditioning;
 /// </summary>
 public sealed class TwoLaneCascadeTests
 {
-    // The conditioner of two and six leads (a pair; a group of four and a pair): LeadSetConditionerTests. Here the
-    // detector's band-pass and the kernel.
-    [Theory]
-    [InlineData(1)]
-    [InlineData(7)]
-    [InlineData(1000)]
-    public void DetectorBandPass_TwoLanes_EqualsEachLeadAlone(int block)
-    {
-        // The detector's band-pass (5–15 Hz, second-order Butterworth band-pass: two sections), NWaves frequencies
-        // divided by the sampling rate, settled on the first sample as the detector settles it. Held samples in place of
-        // gaps, as the detector feeds it; leads 0 and 3 (207 MLII, 208 V1), the most unlike pair.
-        const double fs = 360;
-        var four = CascadeLeads.Read(4, withGaps: false);
-        var raw = new[] { four[0], four[3] };
-        BiquadCascade Design() => new(new NWaves.Filters.Butterworth.BandPassFilter(5 / fs, 15 / fs, 2).Tf);
-        var lone = raw.Select(_ => Design()).ToArray();
-        var expected = raw.Select((l, k) =>
-        {
-            var c = (float[])l.Clone();
-            lone[k].SettleAt(c[0]);
-            lone[k].Process(c);
-            return c;
-        }).ToArray();
-
-        var first = Design();
-        var second = Design();
-        Assert.Equal(2, first.Sections);
-        first.SettleAt(raw[0][0]);
-        second.SettleAt(raw[1][0]);
-        var actual = CascadeLeads.InBlocks(raw, block, (buffer, count) => first.ProcessWith(second, buffer[..count], buffer.Slice(count, count)));
-        CascadeLeads.AssertBitIdentical(expected[0], actual[0], $"first lane, block {block}");
-        CascadeLeads.AssertBitIdentical(expected[1], actual[1], $"second lane, block {block}");
-        Assert.Equal(lone[0].StateSnapshot(), first.StateSnapshot());
-        Assert.Equal(lone[1].StateSnapshot(), second.StateSnapshot());
-    }
-
+    // The conditioner of two and six leads (a pair; a group of four and a pair): LeadSetConditionerTests; the
+    // detector's band-pass: DetectorBandPassTests.
     [Fact]
     public void ProcessWith_MissingSampleInOneLane_LeavesTheOtherAlone()
     {
