@@ -3,14 +3,12 @@ using LongRecord.Analysis.Conditioning;
 namespace LongRecord.Analysis.Tests.Conditioning;
 
 /// <summary>
-/// Three to seven leads filtered together in the lanes of one vector give every lead's samples bit for bit as the lead
-/// filtered alone, whatever the block size and with missing samples. The reference is each lead through its own
-/// <see cref="EcgConditioner"/> or lone <see cref="BiquadCascade"/> (the cascade whole); the signals are MIT-BIH Arrhythmia Database
-/// records 207 and 208 (PhysioNet, read in place), four different leads so that a lane mix-up shows.
+/// The four-lane kernel's contract: it takes three or four cascades of one section count and refuses anything else.
+/// What it computes is checked lane by lane against each lead alone in LeadSetConditionerTests (the conditioner) and
+/// DetectorBandPassTests (the detector's band-pass).
 /// </summary>
 public sealed class FourLaneCascadeTests
 {
-    // The conditioner of three to seven leads: LeadSetConditionerTests; the detector's band-pass: DetectorBandPassTests.
     [Fact]
     public void ProcessFour_RefusesOtherLaneCountsAndUnequalCascades()
     {
