@@ -1,6 +1,5 @@
-using System.Numerics;
 using LongRecord.Analysis.Settings;
-using MathNet.Numerics.IntegralTransforms;
+using NWaves.Transforms;
 
 namespace LongRecord.Analysis.Rhythm;
 
@@ -18,7 +17,10 @@ internal sealed class HrvSpectrum(HrvSettings settings)
     private double[] _second = [];
     private double[] _scratch = [];
     private double[] _series = [];
-    private Complex[] _buffer = [];
+    private double[] _buffer = [];
+    private double[] _re = [];
+    private double[] _im = [];
+    private RealFft64? _fft;
 
     public (double LfMs2, double HfMs2) Bands(ReadOnlySpan<double> tS, ReadOnlySpan<double> nnS)
     {
@@ -57,9 +59,13 @@ internal sealed class HrvSpectrum(HrvSettings settings)
             size <<= 1;
         }
 
-        if (_buffer.Length != size)
+        if (_fft is null || _fft.Size != size)
         {
-            _buffer = new Complex[size];
+            // A real-input transform with its twiddle tables built once per size (a 5-min segment at 4 Hz: 2048).
+            _fft = new RealFft64(size);
+            _buffer = new double[size];
+            _re = new double[size];
+            _im = new double[size];
         }
 
         var windowPower = 0.0;
@@ -67,18 +73,17 @@ internal sealed class HrvSpectrum(HrvSettings settings)
         {
             var w = k < points ? 0.5 - 0.5 * Math.Cos(2 * Math.PI * k / (points - 1)) : 0;
             windowPower += w * w;
-            _buffer[k] = new Complex(k < points ? series[k] * w : 0, 0);
+            _buffer[k] = k < points ? series[k] * w : 0;
         }
 
-        Fourier.Forward(_buffer, FourierOptions.NoScaling);
+        _fft.Direct(_buffer, _re, _im);
         var df = fs / size;
         double lf = 0, hf = 0;
         for (var k = 1; k < size / 2; k++)
         {
             var f = k * df;
             // One-sided density, s²/Hz: 2 |X|² / (fs Σw²).
-            var m = _buffer[k].Magnitude;
-            var density = 2 * m * m / (fs * windowPower);
+            var density = 2 * (_re[k] * _re[k] + _im[k] * _im[k]) / (fs * windowPower);
             if (f >= _s.LfLowHz && f < _s.LfHighHz)
             {
                 lf += density * df;
