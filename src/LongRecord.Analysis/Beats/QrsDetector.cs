@@ -36,6 +36,8 @@ public sealed partial class QrsDetector
 
     private readonly BiquadCascade[] _bandPass;
     private readonly float[] _held;
+    private readonly bool[] _settled;
+    private readonly bool[] _settlePending;
     private readonly float[][] _derivativeHistory;
     private readonly float[][] _squares;
     private readonly double[] _integralSum;
@@ -92,6 +94,8 @@ public sealed partial class QrsDetector
         _chunk = Math.Max(1, Ms(1000));
         _bandPass = new BiquadCascade[leads];
         _held = new float[leads];
+        _settled = new bool[leads];
+        _settlePending = new bool[leads];
         _derivativeHistory = new float[leads][];
         _squares = new float[leads][];
         _integralSum = new double[leads];
@@ -190,9 +194,12 @@ public sealed partial class QrsDetector
             return;
         }
 
-        if (_n == 0)
+        if (!_settled[k] && FirstFinite(lead) is float first)
         {
-            _held[k] = FirstFinite(lead);
+            // The lead's first valid sample, in whichever block it comes: the band-pass settles on it (BandPass).
+            _held[k] = first;
+            _settlePending[k] = true;
+            _settled[k] = true;
         }
 
         if (AllFinite(lead))
@@ -217,7 +224,7 @@ public sealed partial class QrsDetector
         _held[k] = held;
     }
 
-    private static float FirstFinite(ReadOnlySpan<float> x)
+    private static float? FirstFinite(ReadOnlySpan<float> x)
     {
         foreach (var v in x)
         {
@@ -227,7 +234,7 @@ public sealed partial class QrsDetector
             }
         }
 
-        return 0;
+        return null;
     }
 
     private static bool AllFinite(ReadOnlySpan<float> x)
@@ -260,11 +267,14 @@ public sealed partial class QrsDetector
     // Band-pass of the paper, several leads at a time in the lanes of one vector (the same arithmetic as lead by lead).
     private void BandPass(Span<float> leads, int count)
     {
-        if (_n == 0 && count > 0)
+        // A lead settles at its first valid sample (held back to the block's start); before it, a lead of nothing but
+        // gaps feeds zeros to a filter at rest, so where the caller's blocks begin never matters.
+        for (var k = 0; k < _leads && count > 0; k++)
         {
-            for (var k = 0; k < _leads; k++)
+            if (_settlePending[k])
             {
                 _bandPass[k].SettleAt(leads[k * count]);
+                _settlePending[k] = false;
             }
         }
 

@@ -57,11 +57,19 @@ public sealed class EcgConditioner
 
         if (!_started)
         {
-            var first = FirstValid(signal);
-            _last = first;
-            _filter.SettleAt(first);
-
-            _started = true;
+            // The filter settles at the lead's first valid sample, whichever block holds it: a block of nothing but
+            // gaps before it leaves the filter at rest (zeros in, zeros kept), so the output never depends on where
+            // the caller's blocks begin.
+            if (FirstValid(signal) is float first)
+            {
+                _last = first;
+                _filter.SettleAt(first);
+                _started = true;
+            }
+            else
+            {
+                _last = 0;
+            }
         }
 
         if (!ContainsNaN(signal))
@@ -140,7 +148,7 @@ public sealed class EcgConditioner
         return false;
     }
 
-    private static float FirstValid(ReadOnlySpan<float> x)
+    private static float? FirstValid(ReadOnlySpan<float> x)
     {
         foreach (var v in x)
         {
@@ -150,6 +158,6 @@ public sealed class EcgConditioner
             }
         }
 
-        return 0;
+        return null;
     }
 }

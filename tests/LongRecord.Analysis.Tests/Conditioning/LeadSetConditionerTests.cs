@@ -34,7 +34,7 @@ public sealed class LeadSetConditionerTests
     public void LeadSet_AnyBlockSize_EqualsEachLeadAlone(int leads, int block, double rateHz)
     {
         var raw = CascadeLeads.Read(leads, withGaps: true);
-        // Each lead alone in the same blocks (a recording that starts inside a gap settles the filter on its first block).
+        // Each lead alone in the same blocks (lead 1 starts inside a gap: its filter settles at its first valid sample).
         var alone = raw.Select(_ => new EcgConditioner(rateHz)).ToArray();
         var expected = raw.Select((l, k) =>
         {
