@@ -81,8 +81,13 @@ public sealed record QualitySettings
     /// </summary>
     public double ChaoticOrganisedResidualIndex { get; init; } = 0.08;
 
-    /// <summary>Leakage below this is a near-pure sinusoid (ventricular flutter) even when it repeats (synthetic flutter 0.15–0.21); measured.</summary>
-    public double SinusoidLeakage { get; init; } = 0.3;
+    /// <summary>
+    /// Leakage below this reads as ventricular flutter even when it repeats beat after beat: the decision threshold of
+    /// Kuo and Dillman's VF filter as Amann et al. 2005 give it (0.406, from memory). Measured: synthetic flutter
+    /// 0.15–0.21, MITDB 207's regular flutter at 252–259 s 0.32–0.40 on its lower lead; the organised tachycardias of
+    /// SVDB 861 and 865 (lower lead 0.53 and above) and MITDB's other records stay above it.
+    /// </summary>
+    public double SinusoidLeakage { get; init; } = 0.406;
 
     /// <summary>
     /// Unreadable candidate when the slope index reaches this: the level at which MITDB's expert-annotated beats in
