@@ -76,6 +76,8 @@ public static class Program
         var fastest = double.MaxValue;
         var leastCpu = double.MaxValue;
         var process = Process.GetCurrentProcess();
+        var allocated0 = GC.GetTotalAllocatedBytes(precise: true);
+        var collections0 = GC.CollectionCount(0);
         for (var i = 0; i < 5; i++)
         {
             process.Refresh();
@@ -87,7 +89,10 @@ public static class Program
             leastCpu = Math.Min(leastCpu, (process.TotalProcessorTime - cpu0).TotalSeconds);
         }
 
+        var beatsAllocated = (GC.GetTotalAllocatedBytes(precise: true) - allocated0) / 5.0;
+        var beatsCollections = (GC.CollectionCount(0) - collections0) / 5.0;
         Console.WriteLine("  stages of the last run: " + BeatsBenchmarks.LastTimings);
+        Console.WriteLine(FormattableString.Invariant($"  allocated per 24 h: {beatsAllocated * 12 / 1048576:F0} MB, {beatsCollections * 12:F0} gen-0 collections"));
         var day = RhythmBenchmarks.DayOfBeats();
         LongRecord.Analysis.Rhythm.RhythmAnalyser.Analyse(day);
         var rhythmBest = double.MaxValue;
