@@ -97,6 +97,13 @@ public sealed class BeatClassifier
             var normalWidth = float.IsNaN(measurements.QrsWidthMs) || double.IsNaN(normal.WidthMs) ? normal.SpreadMs : normal.WidthMs;
             beat.ExtraWidthMs = width - normalWidth;
             beat.NormalWidthMs = normalWidth;
+
+            // In a noisy window a measured width scatters as the normal beats' widths do there: for a normal
+            // distribution the lower quartile lies 0.674 standard deviations below the mean, and a beat counts as
+            // narrower only beyond two of them. Clean windows keep the fixed limit (such windows were Q before noise
+            // was judged, so no decision on a clean beat changes).
+            var widthSd = double.IsNaN(normal.WidthMs) || double.IsNaN(normal.WidthLowerQuartileMs) ? 0 : Math.Max(0, (normal.WidthMs - normal.WidthLowerQuartileMs) / 0.674);
+            beat.NarrowerLimitMs = _shape.NoiseRatio > _settings.NoiseLimit ? Math.Max(_settings.NarrowerMs, 2 * widthSd) : _settings.NarrowerMs;
             beat.NormalBlocked = normal.WidthCount >= _settings.BundleBranchBlockBeats
                 && normal.WidthLowerQuartileMs >= _settings.BundleBranchBlockMs;
         }
@@ -170,6 +177,7 @@ public sealed class BeatClassifier
         public float WidthMs;
         public double ExtraWidthMs;
         public double NormalWidthMs;
+        public double NarrowerLimitMs;
         public bool NormalBlocked;
         public float Noise;
         public double SameShapeCorrelation;

@@ -68,7 +68,8 @@ internal sealed class BeatDecision
             // Narrower than the normal beat rules a ventricular origin out only when the normal beat conducts
             // normally; behind a bundle-branch block an ectopic ventricular beat may well be the narrower one. The
             // block needs evidence: most of the normal template's beats measured wide, not a mean just over the limit.
-            var narrower = beat.ExtraWidthMs < -_s.NarrowerMs && !beat.NormalBlocked;
+            // In a noisy window, narrower means beyond what the normal beats' own width scatter explains.
+            var narrower = beat.ExtraWidthMs < -beat.NarrowerLimitMs && !beat.NormalBlocked;
             var normalShape = beat.IsNormalTemplate || (beat.CorrelationToNormal >= _s.NormalCorrelation && beat.ExtraWidthMs < _s.WideExtraMs);
             var clearlyDifferent = beat.CorrelationToNormal < _s.DifferentCorrelation;
             var wide = beat.ExtraWidthMs >= _s.WideExtraMs;
