@@ -103,7 +103,9 @@ public sealed record ClassificationSettings
 
     /// <summary>
     /// A beat whose noise ratio (mean absolute second difference away from the QRS over the QRS's peak slope) exceeds
-    /// this is Q. Clean windows give about 0.03; three times that is taken as noise (common practice, no source).
+    /// this has a noisy window: it is Q unless an existing template explains its shape within its noise
+    /// (<see cref="NoiseFloor"/>), and its width counts as narrower than the normal beat's only beyond the normal beats'
+    /// own width scatter. Clean windows give about 0.03; three times that is taken as noise (common practice, no source).
     /// </summary>
     public double NoiseLimit { get; init; } = 0.1;
 

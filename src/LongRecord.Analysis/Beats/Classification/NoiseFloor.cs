@@ -7,8 +7,9 @@ namespace LongRecord.Analysis.Beats.Classification;
 /// segment energy the template's shape cannot explain, amplitude fitted) is measured on every beat against the template
 /// it resembles most, and set against the beat's own noise level (the mean absolute second difference outside its QRS).
 /// Their ratio depends on the noise's spectrum — white noise raises the second difference far more than the low-pass
-/// muscle noise of real recordings does (on the noise stress test's muscle noise, Moody et al. 1984, the segment's
-/// noise energy is some 25 times what white noise of the same second difference would carry) — so it is learned from
+/// muscle noise of real recordings does (on the noise stress test's muscle noise record, Moody et al. 1984, a 240 ms
+/// window's zero-mean noise energy is some 25 times what white noise of the same mean absolute second difference would
+/// carry; measured once, both channels, median over the record) — so it is learned from
 /// the recent beats rather than assumed: its median over the last <see cref="ClassificationSettings.NoiseFloorBeats"/>
 /// beats (the median, so that ectopic beats, whose residual against a template of another shape is large, do not count
 /// as noise while they are the fewer; once they have a template of their own, their residual against it is noise too).
