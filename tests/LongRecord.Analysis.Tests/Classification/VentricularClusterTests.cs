@@ -43,6 +43,8 @@ public sealed class VentricularClusterTests
         ExtraWidthMs = 0,
         NormalWidthMs = 90,
         Noise = 0.03f,
+        SameShapeCorrelation = 1,   // clean: noise takes nothing from a same-shape beat's correlation
+        NarrowerLimitMs = ClassificationSettings.Default.NarrowerMs,
         TemplateVentricularShare = vShare,
         AtrialCorrelation = double.NaN,
         AtrialToPrevious = double.NaN,

@@ -16,6 +16,7 @@ public sealed class BeatClassifier
     private readonly BeatShape _shape;
     private readonly Queue<ClassifiedBeat> _decided = new();
     private readonly BeatDecision _decision;
+    private readonly NoiseFloor _noise;
 
     private float[] _previousAtrial;
     private bool _previousAtrialValid;
@@ -36,6 +37,7 @@ public sealed class BeatClassifier
         _rhythm = new RhythmContext(_settings);
         _shape = _extractor.NewShape();
         _decision = new BeatDecision(_settings, _rhythm);
+        _noise = new NoiseFloor(_settings);
         _previousAtrial = new float[_shape.Atrial.Length];
     }
 
@@ -62,7 +64,12 @@ public sealed class BeatClassifier
         if (_extractor.Extract(window, length, fiducialIndex, _shape))
         {
             var width = float.IsNaN(measurements.QrsWidthMs) ? _shape.SpreadMs : measurements.QrsWidthMs;
-            var match = _templates.Assign(_shape, onTime, float.IsNaN(measurements.QrsWidthMs) ? double.NaN : measurements.QrsWidthMs);
+            var noiseResidual = _noise.ResidualFor(_shape.NoiseLevel);
+            var energy = _shape.TotalEnergy();
+            var correction = _noise.Correction(noiseResidual, energy);
+            var match = _templates.Assign(_shape, onTime, float.IsNaN(measurements.QrsWidthMs) ? double.NaN : measurements.QrsWidthMs, correction);
+            _noise.Add(match.Residual, _shape.NoiseLevel);
+            beat.SameShapeCorrelation = NoiseFloor.SameShapeCorrelation(noiseResidual, energy);
             beat.Valid = true;
             beat.Template = match.Template.Id;
             beat.NewShape = match.Created;
@@ -73,9 +80,16 @@ public sealed class BeatClassifier
             beat.TemplateVentricularShare = t.Weight > 0 ? t.VentricularWeight / t.Weight : 0;
             var normal = _templates.Normal!;
             beat.IsNormalTemplate = normal == match.Template;
-            (beat.CorrelationToNormal, beat.AmplitudeToNormal, _) = beat.IsNormalTemplate
-                ? (match.Correlation, match.Amplitude, 0)
-                : _templates.BestShift(_shape, normal);
+            if (beat.IsNormalTemplate)
+            {
+                (beat.CorrelationToNormal, beat.AmplitudeToNormal) = (match.Correlation, match.Amplitude);
+            }
+            else
+            {
+                var (c, a, _) = _templates.BestShift(_shape, normal);
+                (beat.CorrelationToNormal, beat.AmplitudeToNormal) = (Math.Min(1, c * correction), a / correction);
+            }
+
             beat.AtrialCorrelation = TemplateSet.AtrialCorrelation(_shape, normal);
             beat.AtrialToPrevious = _previousAtrialValid ? Correlation(_shape.Atrial, _previousAtrial) : double.NaN;
             _shape.Atrial.CopyTo(_previousAtrial, 0);
@@ -83,6 +97,13 @@ public sealed class BeatClassifier
             var normalWidth = float.IsNaN(measurements.QrsWidthMs) || double.IsNaN(normal.WidthMs) ? normal.SpreadMs : normal.WidthMs;
             beat.ExtraWidthMs = width - normalWidth;
             beat.NormalWidthMs = normalWidth;
+
+            // In a noisy window a measured width scatters as the normal beats' widths do there: for a normal
+            // distribution the lower quartile lies 0.674 standard deviations below the mean, and a beat counts as
+            // narrower only beyond two of them. Clean windows keep the fixed limit (such windows were Q before noise
+            // was judged, so no decision on a clean beat changes).
+            var widthSd = double.IsNaN(normal.WidthMs) || double.IsNaN(normal.WidthLowerQuartileMs) ? 0 : Math.Max(0, (normal.WidthMs - normal.WidthLowerQuartileMs) / 0.674);
+            beat.NarrowerLimitMs = _shape.NoiseRatio > _settings.NoiseLimit ? Math.Max(_settings.NarrowerMs, 2 * widthSd) : _settings.NarrowerMs;
             beat.NormalBlocked = normal.WidthCount >= _settings.BundleBranchBlockBeats
                 && normal.WidthLowerQuartileMs >= _settings.BundleBranchBlockMs;
         }
@@ -156,8 +177,10 @@ public sealed class BeatClassifier
         public float WidthMs;
         public double ExtraWidthMs;
         public double NormalWidthMs;
+        public double NarrowerLimitMs;
         public bool NormalBlocked;
         public float Noise;
+        public double SameShapeCorrelation;
         public double TemplatePrematureShare;
         public double TemplateVentricularShare;
         public double AtrialCorrelation;

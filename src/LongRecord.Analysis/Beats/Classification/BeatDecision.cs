@@ -16,7 +16,10 @@ namespace LongRecord.Analysis.Beats.Classification;
 /// looks like atrial fibrillation setting in (RRs jumping from beat to beat, pre-QRS segments unlike each other, few
 /// P waves) its beats are N. Never during irregularly irregular rhythm without P waves on the on-time beats (atrial
 /// fibrillation): conducted beats there are N.</item>
-/// <item>Q: no usable signal, a noisy window, or an on-time beat of a shape that matches no template.</item>
+/// <item>Q: no usable signal; noise so strong that no shape can be judged; a noisy window whose shape no template
+/// explains within its noise; or an on-time beat of a shape that matches no template. Correlations and amplitudes come
+/// corrected for the noise the beat carries (<see cref="NoiseFloor"/>), so that a beat of a known shape in noise is
+/// judged as it would be in clean signal.</item>
 /// </list>
 /// Published ideas behind the rules (all from memory): the RR features — coupling RR and the RR after it judged
 /// against the local mean RR — of de Chazal, O'Dwyer and Reilly, IEEE Trans Biomed Eng 51(7), 2004, here as fixed
@@ -53,7 +56,10 @@ internal sealed class BeatDecision
         var flags = premature ? BeatFlags.Premature : BeatFlags.None;
 
         BeatClass cls;
-        if (!beat.Valid || beat.Noise > _s.NoiseLimit)
+        // Unclassifiable: no usable signal; noise so strong that it alone would take a beat of the normal shape below
+        // the correlation at which shapes count as clearly different (no shape can be judged); or a noisy window whose
+        // shape no template explains within its noise (an artefact, not a beat of a known origin).
+        if (!beat.Valid || beat.SameShapeCorrelation < _s.DifferentCorrelation || (beat.Noise > _s.NoiseLimit && beat.NewShape))
         {
             cls = BeatClass.Q;
         }
@@ -62,7 +68,8 @@ internal sealed class BeatDecision
             // Narrower than the normal beat rules a ventricular origin out only when the normal beat conducts
             // normally; behind a bundle-branch block an ectopic ventricular beat may well be the narrower one. The
             // block needs evidence: most of the normal template's beats measured wide, not a mean just over the limit.
-            var narrower = beat.ExtraWidthMs < -_s.NarrowerMs && !beat.NormalBlocked;
+            // In a noisy window, narrower means beyond what the normal beats' own width scatter explains.
+            var narrower = beat.ExtraWidthMs < -beat.NarrowerLimitMs && !beat.NormalBlocked;
             var normalShape = beat.IsNormalTemplate || (beat.CorrelationToNormal >= _s.NormalCorrelation && beat.ExtraWidthMs < _s.WideExtraMs);
             var clearlyDifferent = beat.CorrelationToNormal < _s.DifferentCorrelation;
             var wide = beat.ExtraWidthMs >= _s.WideExtraMs;

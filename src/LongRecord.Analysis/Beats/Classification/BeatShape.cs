@@ -56,6 +56,21 @@ internal sealed class BeatShape
     /// <summary>Slope energy outside the QRS relative to the QRS's own (higher for noisy beats).</summary>
     public float NoiseRatio { get; set; }
 
+    /// <summary>Mean absolute second difference outside the QRS over all leads (mV): the beat's own noise level.</summary>
+    public float NoiseLevel { get; set; }
+
+    /// <summary>Zero-mean energy of the segment at zero shift, summed over leads.</summary>
+    public double TotalEnergy()
+    {
+        double e = 0;
+        for (var k = 0; k < Leads; k++)
+        {
+            e += Energy(k, 0, out _);
+        }
+
+        return e;
+    }
+
     public bool Valid { get; set; }
 
     /// <summary>Zero-mean energy of lead <paramref name="k"/> over the segment at shift <paramref name="shift"/>.</summary>

@@ -107,7 +107,8 @@ internal sealed class ShapeExtractor
         shape.CentreIndex = centre;
         shape.BuildSums();
         MeasureSpread(window, length, centre, shape);
-        shape.NoiseRatio = Noise(window, length, centre, shape.PeakSlope);
+        shape.NoiseLevel = NoiseLevel(window, length, centre);
+        shape.NoiseRatio = shape.PeakSlope > 0 ? shape.NoiseLevel / shape.PeakSlope : 0;
         shape.Valid = true;
         return true;
     }
@@ -193,9 +194,10 @@ internal sealed class ShapeExtractor
         shape.SpreadMs = (float)((hi - lo + 1) * 1000.0 / _fs);
     }
 
-    // Mean absolute second difference away from the QRS (100 to 400 ms either side, every other sample), against
-    // the QRS's largest slope: muscle noise and electrode artefact raise it, clean baseline and slow P/T waves barely do.
-    private float Noise(ReadOnlySpan<float> window, int length, int centre, float peakSlope)
+    // Mean absolute second difference away from the QRS (100 to 400 ms either side, every other sample); against the
+    // QRS's largest slope it is the noise ratio: muscle noise and electrode artefact raise it, clean baseline and slow
+    // P/T waves barely do.
+    private float NoiseLevel(ReadOnlySpan<float> window, int length, int centre)
     {
         double sum = 0;
         var n = 0;
@@ -206,7 +208,7 @@ internal sealed class ShapeExtractor
             n += SumSecondDifference(lead, centre + _quietHalf, Math.Min(length - 1, centre + _noiseReach), ref sum);
         }
 
-        return n == 0 || peakSlope <= 0 ? 0 : (float)(sum / n / peakSlope);
+        return n == 0 ? 0 : (float)(sum / n);
     }
 
     private static int SumSecondDifference(ReadOnlySpan<float> lead, int from, int to, ref double sum)

@@ -37,8 +37,12 @@ internal sealed class TemplateSet
 
     public IReadOnlyList<MorphologyTemplate> All => _templates;
 
-    /// <summary>Assigns the beat to a template (creating one when none fits) and updates it.</summary>
-    public Match Assign(BeatShape beat, bool onTime, double widthMs)
+    /// <summary>
+    /// Assigns the beat to a template (creating one when none fits) and updates it. Correlations and amplitude ratios
+    /// are judged after <paramref name="noiseCorrection"/> (<see cref="NoiseFloor.Correction"/>; 1 for a clean beat);
+    /// the match carries the beat's raw residual energy against the closest existing template (NaN when there was none).
+    /// </summary>
+    public Match Assign(BeatShape beat, bool onTime, double widthMs, double noiseCorrection = 1)
     {
         _beats++;
         foreach (var t in _templates)
@@ -71,7 +75,7 @@ internal sealed class TemplateSet
             }
 
             // A shift of a few milliseconds cannot lift a poor match to a good one.
-            if (at < 0 || (pick > 0 && coarse[at] < _settings.MatchCorrelation - 0.2))
+            if (at < 0 || (pick > 0 && coarse[at] * noiseCorrection < _settings.MatchCorrelation - 0.2))
             {
                 break;
             }
@@ -84,6 +88,11 @@ internal sealed class TemplateSet
             }
         }
 
+        // The residual noise and shape differences leave: the beat's energy at the best shift that the template's
+        // shape, amplitude fitted, does not explain.
+        var residual = best is null ? double.NaN : bestAmp * bestAmp * best.Energy * (1 - bestCorr * bestCorr);
+        bestCorr = Math.Min(1, bestCorr * noiseCorrection);
+        bestAmp /= noiseCorrection;
         var joins = best is not null && bestCorr >= _settings.MatchCorrelation
             && bestAmp >= 1 / _settings.MatchAmplitudeRatio && bestAmp <= _settings.MatchAmplitudeRatio;
         if (!joins)
@@ -99,7 +108,7 @@ internal sealed class TemplateSet
         }
 
         ChooseNormal();
-        return new Match(best!, joins ? bestCorr : 1, joins ? bestAmp : 1, bestShift, !joins);
+        return new Match(best!, joins ? bestCorr : 1, joins ? bestAmp : 1, bestShift, !joins, residual);
     }
 
     /// <summary>Correlation and amplitude ratio of a beat against a template at the best shift.</summary>
@@ -386,5 +395,5 @@ internal sealed class TemplateSet
         }
     }
 
-    public readonly record struct Match(MorphologyTemplate Template, double Correlation, double Amplitude, int Shift, bool Created);
+    public readonly record struct Match(MorphologyTemplate Template, double Correlation, double Amplitude, int Shift, bool Created, double Residual);
 }
