@@ -77,6 +77,62 @@ public sealed class RrOnlyClassifier
         }
     }
 
+    // The latest RRs swing from beat to beat yet repeat with a period of two or three beats: the median successive
+    // change is a large share of the median RR and the median change over that lag a small one (common practice, no
+    // source: in AF successive and lagged changes are alike).
+    private bool Patterned()
+    {
+        Span<double> recent = stackalloc double[PatternRrs];
+        for (var back = 0; back < PatternRrs; back++)
+        {
+            recent[back] = _rhythm.Rr(back);
+            if (double.IsNaN(recent[back]))
+            {
+                return false;
+            }
+        }
+
+        Span<double> sorted = stackalloc double[PatternRrs];
+        recent.CopyTo(sorted);
+        sorted.Sort();
+        var median = 0.5 * (sorted[PatternRrs / 2 - 1] + sorted[PatternRrs / 2]);
+        Span<double> changes = stackalloc double[PatternRrs];
+        var successive = MedianChange(recent, 1, changes);
+        if (successive < PatternMinSwing * median)
+        {
+            return false; // hardly irregular beat to beat: no pattern to tell from fibrillation
+        }
+
+        for (var lag = 2; lag <= 3; lag++)
+        {
+            if (MedianChange(recent, lag, changes) <= PatternTolerance * median)
+            {
+                return true;
+            }
+        }
+
+        return false;
+    }
+
+    private static double MedianChange(ReadOnlySpan<double> rr, int lag, Span<double> scratch)
+    {
+        var n = rr.Length - lag;
+        for (var i = 0; i < n; i++)
+        {
+            scratch[i] = Math.Abs(rr[i] - rr[i + lag]);
+        }
+
+        var c = scratch[..n];
+        c.Sort();
+        return n % 2 == 1 ? c[n / 2] : 0.5 * (c[n / 2 - 1] + c[n / 2]);
+    }
+
+    private const int PatternRrs = 12;
+    private const double PatternTolerance = 0.06;
+
+    // Bigeminy swings between a premature coupling and its pause: successive RRs differ by a good share of the cycle.
+    private const double PatternMinSwing = 0.2;
+
     private void Decide(double rrNext)
     {
         var rrPrev = _pendingRr;
@@ -97,6 +153,13 @@ public sealed class RrOnlyClassifier
             if (!double.IsNaN(irregularity))
             {
                 _fibrillation = _fibrillation ? irregularity > _s.IrregularityWithoutPThreshold : irregularity > _s.IrregularityThreshold;
+            }
+
+            // Bigeminy and trigeminy are irregular beat to beat but repeat every second or third RR: regularly
+            // irregular, not fibrillation, so their premature beats are still judged as ectopic.
+            if (_fibrillation && Patterned())
+            {
+                _fibrillation = false;
             }
 
             if (!premature || _fibrillation)
