@@ -3,6 +3,9 @@ namespace LongRecord.Analysis.Episodes;
 /// <summary>
 /// The one-kind rule applied after classification: consecutive ectopic beats above the tachycardia rate lasting under
 /// the sustained duration are an SVE or VE run (with their EC57 run class); 30 s or longer keep their tachycardia kind.
+/// Consecutive ventricular beats under the sustained duration are a VE run at any rate, as EC57 counts runs by beats
+/// (a slow run of three to five is still a run of three to five); only a slow ventricular rhythm of 30 s or more is
+/// an idioventricular rhythm.
 /// </summary>
 internal static class EpisodeKindRule
 {
@@ -14,7 +17,7 @@ internal static class EpisodeKindRule
             {
                 kind = EpisodeKinds.SveRun;
             }
-            else if (kind == EpisodeKinds.BroadTachycardia)
+            else if (kind is EpisodeKinds.BroadTachycardia or EpisodeKinds.IdioventricularRhythm)
             {
                 kind = EpisodeKinds.VeRun;
             }

@@ -90,6 +90,12 @@ public sealed class OnsetAndRunRuleTests
     [InlineData("broad-tachycardia", 30.0, 80, "broad-tachycardia", "")]
     [InlineData("svt", 45.0, 130, "svt", "")]
     [InlineData("sinus-tachycardia", 20.0, 40, "sinus-tachycardia", "")]
+    // EC57 counts ventricular runs by beats, not rate: a slow run of four is a run of 3–5; a slow ventricular rhythm
+    // of 30 s or more is an idioventricular rhythm; slow junctional beats are escape beats (N class), never a run.
+    [InlineData("idioventricular-rhythm", 3.0, 4, "ve-run", "run-3-5")]
+    [InlineData("idioventricular-rhythm", 12.0, 9, "ve-run", "run-6+")]
+    [InlineData("idioventricular-rhythm", 40.0, 30, "idioventricular-rhythm", "")]
+    [InlineData("junctional-rhythm", 5.0, 5, "junctional-rhythm", "")]
     public void KindRule_Under30sEctopicIsARun_WithItsEc57RunClass(string kind, double durationS, int beats, string expectedKind, string expectedClass)
     {
         var (k, runClass) = EpisodeKindRule.Apply(kind, durationS, beats, s_settings.SustainedS);
