@@ -14,6 +14,7 @@ internal sealed class BeatTrack
     private readonly Beat[] _beats;
     private readonly int _offset;
     private readonly Dictionary<short, int> _templateCounts = [];
+    private readonly Dictionary<short, int> _templateVCounts = [];
 
     public BeatTrack(ReadOnlyMemory<Beat> beats, double referenceRateHz, IReadOnlyList<SignalStretch> stretches, double maxBeatGapS)
     {
@@ -39,6 +40,10 @@ internal sealed class BeatTrack
                 if (b.Class == BeatClass.N)
                 {
                     normal[b.Template] = normal.GetValueOrDefault(b.Template) + 1;
+                }
+                else if (b.Class == BeatClass.V)
+                {
+                    _templateVCounts[b.Template] = _templateVCounts.GetValueOrDefault(b.Template) + 1;
                 }
             }
         }
@@ -88,6 +93,22 @@ internal sealed class BeatTrack
 
     /// <summary>Beats of the recording in the morphology template of beat i (0 when it has none).</summary>
     public int TemplateCount(int i) => _templateCounts.GetValueOrDefault(this[i].Template);
+
+    /// <summary>
+    /// Beat <paramref name="i"/> is labelled V, or has the shape of a template whose beats (at least three) are mostly
+    /// labelled V: a ventricular shape even where its own label says otherwise.
+    /// </summary>
+    public bool VentricularShape(int i)
+    {
+        ref readonly var b = ref this[i];
+        if (b.Class == BeatClass.V)
+        {
+            return true;
+        }
+
+        var total = b.Template >= 0 ? _templateCounts.GetValueOrDefault(b.Template) : 0;
+        return total >= 3 && 2 * _templateVCounts.GetValueOrDefault(b.Template) > total;
+    }
 
     public bool HasRr(int i) => i > 0 && i < Count && !float.IsNaN(RrS[i]);
 

@@ -191,6 +191,37 @@ internal static class CandidateFinder
         return (from, to);
     }
 
+    // Extends a labelled couplet [i, j] over neighbouring beats of a ventricular shape; true when that makes a run.
+    private static bool VentricularRun(BeatTrack track, int i, int j, EpisodeSettings s, out int from, out int to)
+    {
+        from = i;
+        to = j;
+        while (from > 0 && track.HasRr(from) && track[from - 1].Class != BeatClass.V && track.VentricularShape(from - 1))
+        {
+            from--;
+        }
+
+        while (to + 1 < track.Count && track.HasRr(to + 1) && track[to + 1].Class != BeatClass.V && track.VentricularShape(to + 1))
+        {
+            to++;
+        }
+
+        if (to - from + 1 < s.RunMinimumBeats)
+        {
+            return false;
+        }
+
+        // Only at tachycardia rate: a ventricular run that grows over its neighbours is a ventricular tachycardia;
+        // slow runs of one shape (paced rhythm read as V among them) stay as their labels say.
+        double sum = 0;
+        for (var k = from + 1; k <= to; k++)
+        {
+            sum += track.RrS[k];
+        }
+
+        return sum / (to - from) < 60.0 / s.TachycardiaRateBpm;
+    }
+
     private static void ClassRuns(BeatTrack track, EpisodeSettings s, List<Candidate> list, out int sveCouplets, out int veCouplets)
     {
         sveCouplets = 0;
@@ -217,9 +248,17 @@ internal static class CandidateFinder
                 sveCouplets += c == BeatClass.S ? 1 : 0;
                 veCouplets += c == BeatClass.V ? 1 : 0;
             }
-            else if (n >= s.RunMinimumBeats)
+
+            if (n >= s.RunMinimumBeats)
             {
                 list.Add(new Candidate(i, j, c == BeatClass.S ? CandidateSource.SveRun : CandidateSource.VeRun));
+            }
+            else if (c == BeatClass.V && n == 2 && VentricularRun(track, i, j, s, out var from, out var to))
+            {
+                // A couplet beside beats of a ventricular shape whose own label is N or Q, at tachycardia rate: in
+                // multiform records the first or last beat of a run often carries a label of its own, but its shape is
+                // the run's.
+                list.Add(new Candidate(from, to, CandidateSource.VeRun));
             }
 
             i = j + 1;

@@ -120,4 +120,35 @@ public sealed class OnsetAndRunRuleTests
         Assert.Equal(1, veCouplets);
         Assert.Equal(0, sveCouplets);
     }
+
+    [Theory]
+    [InlineData(0.45, true)]
+    [InlineData(0.8, false)]
+    public void VCoupletAfterABeatOfAMostlyVShape_IsARunOfThree_OnlyAtTachycardiaRate(double runRrS, bool expectRun)
+    {
+        // Template 0 the normal shape; template 5 a ventricular shape the beats stage labels V four times (beats 11–14
+        // at 0.45 s). Later a beat of template 5 labelled N, then a V couplet of template 5: at 0.45 s the three beats
+        // are one ventricular run (our rule: the first beat of a run often carries a label of its own in multiform
+        // records, MITDB 203); at 0.8 s (75/min) the labels stand and there is only the couplet.
+        var rr = EpisodeTrack.Repeat(0.8, 10).Concat(EpisodeTrack.Repeat(0.45, 4)).Concat(EpisodeTrack.Repeat(0.8, 16))
+            .Concat(EpisodeTrack.Repeat(runRrS, 3)).Concat(EpisodeTrack.Repeat(0.8, 10)).ToList();
+        var t = EpisodeTrack.FromRr(rr,
+            classOf: i => i is >= 11 and <= 14 or 32 or 33 ? BeatClass.V : BeatClass.N,
+            templateOf: i => i is >= 11 and <= 14 or >= 31 and <= 33 ? (short)5 : (short)0);
+
+        var candidates = CandidateFinder.Find(t, EpisodeTrack.NoRhythm(60), s_settings, out _, out var veCouplets);
+
+        var runs = candidates.Where(c => c.Source.HasFlag(CandidateSource.VeRun) && c.First >= 30).ToList();
+        Assert.Equal(1, veCouplets);
+        if (expectRun)
+        {
+            var run = Assert.Single(runs);
+            Assert.Equal(31, run.First);
+            Assert.Equal(33, run.Last);
+        }
+        else
+        {
+            Assert.Empty(runs);
+        }
+    }
 }
