@@ -35,6 +35,10 @@ internal sealed class AfDetector(AfSettings settings)
 
     private readonly AfSettings _s = settings;
 
+    // A beat's P-wave finding as atrial evidence: none where the lead carried noise around the beat, since a P wave
+    // not found in noise says nothing about the atria (it would relax the RR criteria as absent P waves do).
+    private static sbyte AtrialFinding(in Beat beat) => beat.LeadQuality == LeadQuality.Noisy ? (sbyte)-1 : beat.PWave;
+
     internal static ushort Compared(int lag) => (ushort)(1 << (3 * lag - 2));
 
     internal static ushort Alike(int lag) => (ushort)(1 << (3 * lag - 1));
@@ -97,7 +101,7 @@ internal sealed class AfDetector(AfSettings settings)
 
                 while (hi < e && (keptAfter < wantAfter || hi <= i) && (roomAfter < wantAfter || (measure[hi] & Room) == 0))
                 {
-                    w.Add(measure[hi], beats[hi].PWave, hasF ? fWaveScores[hi] : float.NaN, +1);
+                    w.Add(measure[hi], AtrialFinding(beats[hi]), hasF ? fWaveScores[hi] : float.NaN, +1);
                     keptAfter += (measure[hi] & Kept) != 0 ? 1 : 0;
                     roomAfter += (measure[hi] & Room) != 0 ? 1 : 0;
                     hi++;
@@ -105,7 +109,7 @@ internal sealed class AfDetector(AfSettings settings)
 
                 while (lo < i && (roomBefore > wantBefore || keptBefore - ((measure[lo] & Kept) != 0 ? 1 : 0) >= wantBefore))
                 {
-                    w.Add(measure[lo], beats[lo].PWave, hasF ? fWaveScores[lo] : float.NaN, -1);
+                    w.Add(measure[lo], AtrialFinding(beats[lo]), hasF ? fWaveScores[lo] : float.NaN, -1);
                     keptBefore -= (measure[lo] & Kept) != 0 ? 1 : 0;
                     roomBefore -= (measure[lo] & Room) != 0 ? 1 : 0;
                     lo++;
