@@ -18,7 +18,7 @@ namespace LongRecord.Analysis.Rhythm;
 /// fibrillation.</item>
 /// <item>RR irregularity: the share of large successive differences (a median criterion, robust to the odd outlier).</item>
 /// <item>Signal fusion: RR criteria fused with atrial evidence where the signal gives it: consistent P waves veto,
-/// absent P waves or an f-wave score relax the RR criteria.</item>
+/// absent P waves or an f-wave score relax the RR criteria; a beat whose lead carried noise gives no P finding.</item>
 /// </list>
 /// The window is centred on the interval judged (the analysis is offline), which places onsets and offsets within a
 /// few beats, and a window in which too few intervals were kept is not judged (not AF). Dropouts — intervals outside
