@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using System.Runtime.Intrinsics;
 
 namespace LongRecord.Analysis.Conditioning;
@@ -86,13 +87,7 @@ public sealed partial class BiquadCascade
         Vector128<double> u1 = p.Z1, u2 = p.Z2, v1 = q.Z1, v2 = q.Z2;
         for (var i = 0; i < first.Length; i++)
         {
-            var x = Vector128.Create(first[i], second[i]);
-            var y = p.B0 * x + u1;
-            u1 = p.B1 * x - p.A1 * y + u2;
-            u2 = p.B2 * x - p.A2 * y;
-            var z = q.B0 * y + v1;
-            v1 = q.B1 * y - q.A1 * z + v2;
-            v2 = q.B2 * y - q.A2 * z;
+            var z = q.Step(p.Step(Vector128.Create(first[i], second[i]), ref u1, ref u2), ref v1, ref v2);
             first[i] = z.GetElement(0);
             second[i] = z.GetElement(1);
         }
@@ -109,16 +104,7 @@ public sealed partial class BiquadCascade
         Vector128<double> u1 = p.Z1, u2 = p.Z2, v1 = q.Z1, v2 = q.Z2, w1 = r.Z1, w2 = r.Z2;
         for (var i = 0; i < first.Length; i++)
         {
-            var x = Vector128.Create(first[i], second[i]);
-            var y = p.B0 * x + u1;
-            u1 = p.B1 * x - p.A1 * y + u2;
-            u2 = p.B2 * x - p.A2 * y;
-            var z = q.B0 * y + v1;
-            v1 = q.B1 * y - q.A1 * z + v2;
-            v2 = q.B2 * y - q.A2 * z;
-            var o = r.B0 * z + w1;
-            w1 = r.B1 * z - r.A1 * o + w2;
-            w2 = r.B2 * z - r.A2 * o;
+            var o = r.Step(q.Step(p.Step(Vector128.Create(first[i], second[i]), ref u1, ref u2), ref v1, ref v2), ref w1, ref w2);
             first[i] = o.GetElement(0);
             second[i] = o.GetElement(1);
         }
@@ -131,5 +117,16 @@ public sealed partial class BiquadCascade
     // One section's coefficients and state, lane 0 for this cascade and lane 1 for the other.
     private readonly record struct Section(
         Vector128<double> B0, Vector128<double> B1, Vector128<double> B2, Vector128<double> A1, Vector128<double> A2,
-        Vector128<double> Z1, Vector128<double> Z2);
+        Vector128<double> Z1, Vector128<double> Z2)
+    {
+        // One sample through the section (transposed direct form II), in the scalar loop's order of operations.
+        [MethodImpl(MethodImplOptions.AggressiveInlining)]
+        public Vector128<double> Step(Vector128<double> x, ref Vector128<double> z1, ref Vector128<double> z2)
+        {
+            var y = B0 * x + z1;
+            z1 = B1 * x - A1 * y + z2;
+            z2 = B2 * x - A2 * y;
+            return y;
+        }
+    }
 }

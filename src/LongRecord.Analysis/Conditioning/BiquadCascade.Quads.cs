@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using System.Runtime.Intrinsics;
 using System.Runtime.Intrinsics.X86;
 
@@ -178,14 +179,7 @@ public sealed partial class BiquadCascade
         Vector256<double> u1 = p.Z1, u2 = p.Z2, v1 = q.Z1, v2 = q.Z2;
         for (var i = 0; i < signal.Length; i++)
         {
-            var x = signal[i];
-            var y = p.B0 * x + u1;
-            u1 = p.B1 * x - p.A1 * y + u2;
-            u2 = p.B2 * x - p.A2 * y;
-            var z = q.B0 * y + v1;
-            v1 = q.B1 * y - q.A1 * z + v2;
-            v2 = q.B2 * y - q.A2 * z;
-            signal[i] = z;
+            signal[i] = q.Step(p.Step(signal[i], ref u1, ref u2), ref v1, ref v2);
         }
 
         quad.Store(0, u1, u2);
@@ -200,17 +194,7 @@ public sealed partial class BiquadCascade
         Vector256<double> u1 = p.Z1, u2 = p.Z2, v1 = q.Z1, v2 = q.Z2, w1 = r.Z1, w2 = r.Z2;
         for (var i = 0; i < signal.Length; i++)
         {
-            var x = signal[i];
-            var y = p.B0 * x + u1;
-            u1 = p.B1 * x - p.A1 * y + u2;
-            u2 = p.B2 * x - p.A2 * y;
-            var z = q.B0 * y + v1;
-            v1 = q.B1 * y - q.A1 * z + v2;
-            v2 = q.B2 * y - q.A2 * z;
-            var o = r.B0 * z + w1;
-            w1 = r.B1 * z - r.A1 * o + w2;
-            w2 = r.B2 * z - r.A2 * o;
-            signal[i] = o;
+            signal[i] = r.Step(q.Step(p.Step(signal[i], ref u1, ref u2), ref v1, ref v2), ref w1, ref w2);
         }
 
         quad.Store(0, u1, u2);
@@ -249,5 +233,16 @@ public sealed partial class BiquadCascade
     // One section's coefficients and state across the four lanes.
     private readonly record struct QuadSection(
         Vector256<double> B0, Vector256<double> B1, Vector256<double> B2, Vector256<double> A1, Vector256<double> A2,
-        Vector256<double> Z1, Vector256<double> Z2);
+        Vector256<double> Z1, Vector256<double> Z2)
+    {
+        // One sample through the section (transposed direct form II), in the scalar loop's order of operations.
+        [MethodImpl(MethodImplOptions.AggressiveInlining)]
+        public Vector256<double> Step(Vector256<double> x, ref Vector256<double> z1, ref Vector256<double> z2)
+        {
+            var y = B0 * x + z1;
+            z1 = B1 * x - A1 * y + z2;
+            z2 = B2 * x - A2 * y;
+            return y;
+        }
+    }
 }
