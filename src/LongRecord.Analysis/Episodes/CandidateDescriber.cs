@@ -10,6 +10,32 @@ internal sealed record Draft(Episode Episode, int First, int Last, string RawKin
 /// <summary>Measures and names one candidate: rates, regularity, onset and offset, the signal's evidence, the kind.</summary>
 internal static class CandidateDescriber
 {
+    /// <summary>
+    /// A draft over a new extent: its kind, width and signal evidence stand; the RR measures (rates, onset, offset,
+    /// regularity, duration) are taken again over beats <paramref name="first"/>–<paramref name="last"/>, and the
+    /// episode is built again from them, so its fields and its evidence agree.
+    /// </summary>
+    public static Draft Remeasured(Draft d, int first, int last, BeatTrack t, AnalysisSettings settings)
+    {
+        if (d.Facts is null)
+        {
+            return d;
+        }
+
+        var e = d.Episode;
+        var facts = d.Facts with
+        {
+            MeanBpm = t.MeanBpm(Math.Max(0, first - 1), last),
+            MedianBpm = 60 / OnsetOffset.MedianRr(t, first, last),
+            Onset = OnsetOffset.Onset(t, first, last, settings.Episodes),
+            Offset = OnsetOffset.Offset(t, first, last, settings.Episodes),
+            Regularity = RrRegularity.Of(t, first, last),
+            DurationS = t.TimeS(last) - t.TimeS(first),
+        };
+        var episode = Build(t, first, last, d.RawKind, e.Width, e.QrsMs, e.Evidence, e.Confidence, facts, settings);
+        return d with { First = first, Last = last, Facts = facts, Episode = episode };
+    }
+
     /// <summary>The candidate as an episode, or null when the evidence makes it none (an artefact, narrow beats with P waves that are not ectopic).</summary>
     public static Draft? Describe(Candidate c, BeatTrack t, IEpisodeSignal? signal, AnalysisSettings settings)
     {

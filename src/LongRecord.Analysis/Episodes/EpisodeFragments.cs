@@ -131,25 +131,7 @@ internal static class EpisodeFragments
         return true;
     }
 
-    // The host over its new extent: its kind, width and signal evidence stand; the RR measures are taken again.
-    private static Draft Rebuild(Draft host, int first, int last, BeatTrack t, AnalysisSettings settings)
-    {
-        if (first == host.First && last == host.Last || host.Facts is null)
-        {
-            return host;
-        }
-
-        var e = host.Episode;
-        var facts = host.Facts with
-        {
-            MeanBpm = t.MeanBpm(Math.Max(0, first - 1), last),
-            MedianBpm = 60 / OnsetOffset.MedianRr(t, first, last),
-            Onset = OnsetOffset.Onset(t, first, last, settings.Episodes),
-            Offset = OnsetOffset.Offset(t, first, last, settings.Episodes),
-            Regularity = RrRegularity.Of(t, first, last),
-            DurationS = t.TimeS(last) - t.TimeS(first),
-        };
-        var episode = CandidateDescriber.Build(t, first, last, host.RawKind, e.Width, e.QrsMs, e.Evidence, e.Confidence, facts, settings);
-        return host with { First = first, Last = last, Facts = facts, Episode = episode };
-    }
+    // The host over its new extent, measured again (nothing to do when the extent stands).
+    private static Draft Rebuild(Draft host, int first, int last, BeatTrack t, AnalysisSettings settings) =>
+        first == host.First && last == host.Last ? host : CandidateDescriber.Remeasured(host, first, last, t, settings);
 }

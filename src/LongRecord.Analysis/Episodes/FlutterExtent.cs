@@ -102,19 +102,9 @@ internal static class FlutterExtent
         for (var i = 0; i < merged.Count; i++)
         {
             var d = merged[i];
-            if (d.RawKind == EpisodeKinds.Flutter && d.Facts is not null && (d.Episode.StartS != t.TimeS(d.First) || d.Episode.EndS != t.TimeS(d.Last)))
+            if (d.RawKind == EpisodeKinds.Flutter && (d.Episode.StartS != t.TimeS(d.First) || d.Episode.EndS != t.TimeS(d.Last)))
             {
-                var e = d.Episode;
-                var facts = d.Facts with
-                {
-                    MeanBpm = t.MeanBpm(Math.Max(0, d.First - 1), d.Last),
-                    MedianBpm = 60 / OnsetOffset.MedianRr(t, d.First, d.Last),
-                    Onset = OnsetOffset.Onset(t, d.First, d.Last, settings.Episodes),
-                    Offset = OnsetOffset.Offset(t, d.First, d.Last, settings.Episodes),
-                    Regularity = RrRegularity.Of(t, d.First, d.Last),
-                    DurationS = t.TimeS(d.Last) - t.TimeS(d.First),
-                };
-                merged[i] = d with { Facts = facts, Episode = CandidateDescriber.Build(t, d.First, d.Last, d.RawKind, e.Width, e.QrsMs, e.Evidence, e.Confidence, facts, settings) };
+                merged[i] = CandidateDescriber.Remeasured(d, d.First, d.Last, t, settings);
             }
         }
 
