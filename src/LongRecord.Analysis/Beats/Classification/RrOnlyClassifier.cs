@@ -92,10 +92,7 @@ public sealed class RrOnlyClassifier
             }
         }
 
-        Span<double> sorted = stackalloc double[PatternRrs];
-        recent.CopyTo(sorted);
-        sorted.Sort();
-        var median = 0.5 * (sorted[PatternRrs / 2 - 1] + sorted[PatternRrs / 2]);
+        var median = _rhythm.RecentMedian(PatternRrs);
         Span<double> changes = stackalloc double[PatternRrs];
         var successive = MedianChange(recent, 1, changes);
         if (successive < PatternMinSwing * median)
