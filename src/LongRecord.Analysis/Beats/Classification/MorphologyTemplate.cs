@@ -50,8 +50,6 @@ internal sealed class MorphologyTemplate
     /// <summary>Beats whose QRS width the caller gave.</summary>
     public long WidthCount { get; set; }
 
-    public double NoiseRatio { get; set; }
-
     public bool InUse { get; set; }
 
     public void Decay(double factor)

@@ -249,7 +249,6 @@ internal sealed class TemplateSet
         s.WidthMs = double.NaN;
         s.WidthLowerQuartileMs = double.NaN;
         s.WidthCount = 0;
-        s.NoiseRatio = 0;
         Array.Clear(s.Mean);
         Array.Clear(s.Atrial);
         s.AtrialCount = 0;
@@ -299,7 +298,6 @@ internal sealed class TemplateSet
         }
 
         t.SpreadMs += alpha * (beat.SpreadMs - t.SpreadMs);
-        t.NoiseRatio += alpha * (beat.NoiseRatio - t.NoiseRatio);
         if (!double.IsNaN(widthMs))
         {
             t.WidthMs = double.IsNaN(t.WidthMs) ? widthMs : t.WidthMs + alpha * (widthMs - t.WidthMs);
