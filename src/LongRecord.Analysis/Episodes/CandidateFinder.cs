@@ -222,6 +222,21 @@ internal static class CandidateFinder
         return sum / (to - from) < 60.0 / s.TachycardiaRateBpm;
     }
 
+    // Beat j is V, beat j + 1 unclassifiable (Q) and beat j + 2 V of beat j's template, all three broad: the Q beat sits
+    // inside a ventricular run (MITDB 223 at 1442 s: V, Q, V on one ventricular template, 144, 137 and 154 ms).
+    private static bool QBetweenLikeV(BeatTrack track, int j, EpisodeSettings s)
+    {
+        if (j + 2 >= track.Count || track[j + 1].Class != BeatClass.Q || track[j + 2].Class != BeatClass.V || !track.HasRr(j + 2))
+        {
+            return false;
+        }
+
+        // All three broad: in bigeminy a normal beat read Q is narrow, and so are narrow beats misread V.
+        var broad = s.BroadQrsMs;
+        return track[j].Template >= 0 && track[j + 2].Template == track[j].Template
+            && track[j].QrsMs >= broad && track[j + 1].QrsMs >= broad && track[j + 2].QrsMs >= broad;
+    }
+
     private static void ClassRuns(BeatTrack track, EpisodeSettings s, List<Candidate> list, out int sveCouplets, out int veCouplets)
     {
         sveCouplets = 0;
@@ -237,9 +252,20 @@ internal static class CandidateFinder
             }
 
             var j = i;
-            while (j + 1 < track.Count && track[j + 1].Class == c && track.HasRr(j + 1))
+            while (j + 1 < track.Count && track.HasRr(j + 1))
             {
-                j++;
+                if (track[j + 1].Class == c)
+                {
+                    j++;
+                }
+                else if (c == BeatClass.V && QBetweenLikeV(track, j, s))
+                {
+                    j += 2; // ventricular beats of one shape on both sides of an unclassifiable beat: one run
+                }
+                else
+                {
+                    break;
+                }
             }
 
             var n = j - i + 1;

@@ -11,10 +11,10 @@ internal static class EpisodeTrack
 
     /// <summary>
     /// Beats at the cumulative sums of <paramref name="rrS"/> (the first at 1 s), class N unless given, P wave not
-    /// judged unless given (1 found, 0 looked for and not found), morphology template unknown unless given.
+    /// judged unless given (1 found, 0 looked for and not found), morphology template and QRS width unknown unless given.
     /// </summary>
     public static BeatTrack FromRr(IReadOnlyList<double> rrS, Func<int, BeatClass>? classOf = null, Func<int, sbyte>? pWaveOf = null,
-        Func<int, short>? templateOf = null)
+        Func<int, short>? templateOf = null, Func<int, float>? qrsMsOf = null)
     {
         var beats = new Beat[rrS.Count + 1];
         var t = 1.0;
@@ -27,6 +27,7 @@ internal static class EpisodeTrack
 
             beats[i] = Beat.Unmeasured((long)Math.Round(t * RateHz), classOf?.Invoke(i) ?? BeatClass.N, pWave: pWaveOf?.Invoke(i) ?? -1);
             beats[i].Template = templateOf?.Invoke(i) ?? -1;
+            beats[i].QrsMs = qrsMsOf?.Invoke(i) ?? float.NaN;
         }
 
         return new BeatTrack(beats, RateHz, [], maxBeatGapS: 10);

@@ -151,4 +151,35 @@ public sealed class OnsetAndRunRuleTests
             Assert.Empty(runs);
         }
     }
+
+    [Theory]
+    [InlineData(140f, true)]
+    [InlineData(85f, false)]
+    public void BroadQBetweenTwoBroadVOfOneShape_IsARunOfThree_ANarrowQIsNot(float qQrsMs, bool expectRun)
+    {
+        // Normal beats of template 0 (90 ms) at 0.8 s; beats 21 and 23 V of template 5 (145 ms) with beat 22 between
+        // them unclassifiable (Q, another template). Our rule (MITDB 223 at 1442 s: V 144, Q 137, V 154 ms on one
+        // ventricular template, a reference VT of three beats): a broad Q there is part of the run. A narrow Q is the
+        // normal beat of a bigeminy the beats stage could not label (MITDB 200 at 790 s: 85 ms): no run, no couplet.
+        var rr = EpisodeTrack.Repeat(0.8, 20).Concat(EpisodeTrack.Repeat(0.5, 3)).Concat(EpisodeTrack.Repeat(0.8, 10)).ToList();
+        var t = EpisodeTrack.FromRr(rr,
+            classOf: i => i is 21 or 23 ? BeatClass.V : i == 22 ? BeatClass.Q : BeatClass.N,
+            templateOf: i => i is 21 or 23 ? (short)5 : i == 22 ? (short)7 : (short)0,
+            qrsMsOf: i => i is 21 or 23 ? 145f : i == 22 ? qQrsMs : 90f);
+
+        var candidates = CandidateFinder.Find(t, EpisodeTrack.NoRhythm(60), s_settings, out _, out var veCouplets);
+
+        var runs = candidates.Where(c => c.Source.HasFlag(CandidateSource.VeRun)).ToList();
+        Assert.Equal(0, veCouplets);
+        if (expectRun)
+        {
+            var run = Assert.Single(runs);
+            Assert.Equal(21, run.First);
+            Assert.Equal(23, run.Last);
+        }
+        else
+        {
+            Assert.Empty(runs);
+        }
+    }
 }
