@@ -40,8 +40,8 @@ public sealed partial class BiquadCascade
             return;
         }
 
-        Span<double> a = stackalloc double[WorkSamples];
-        Span<double> b = stackalloc double[WorkSamples];
+        var a = Work(2 * WorkSamples)[..WorkSamples];
+        var b = Work(2 * WorkSamples)[WorkSamples..];
         for (var done = 0; done < first.Length; done += WorkSamples)
         {
             var n = Math.Min(WorkSamples, first.Length - done);

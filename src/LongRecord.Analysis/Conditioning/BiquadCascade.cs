@@ -1,4 +1,5 @@
 using System.Numerics;
+using System.Runtime.Intrinsics;
 using NWaves.Filters.Base;
 using NWaves.Filters.Fda;
 
@@ -59,7 +60,7 @@ public sealed partial class BiquadCascade
     /// </remarks>
     public void Process(Span<float> signal)
     {
-        Span<double> work = stackalloc double[WorkSamples];
+        var work = Work(WorkSamples);
         for (var done = 0; done < signal.Length; done += WorkSamples)
         {
             var part = signal.Slice(done, Math.Min(WorkSamples, signal.Length - done));
@@ -85,8 +86,21 @@ public sealed partial class BiquadCascade
         }
     }
 
-    // Samples per pass of the recursion (a 4 KB buffer on the stack).
+    // Samples per pass of the recursion.
     private const int WorkSamples = 512;
+
+    // The widened samples of a pass, kept with the cascade: a buffer on the stack was cleared on every call, which
+    // for one-second steps cost as much as a tenth of the filtering.
+    private double[]? _work;
+    private Vector256<double>[]? _laneWork;
+
+    private Span<double> Work(int length)
+    {
+        _work ??= new double[2 * WorkSamples];
+        return _work.AsSpan(0, length);
+    }
+
+    private Span<Vector256<double>> LaneWork() => _laneWork ??= new Vector256<double>[WorkSamples];
 
     private static void Widen(ReadOnlySpan<float> from, Span<double> to)
     {

@@ -1,3 +1,7 @@
+using System.Numerics;
+using System.Runtime.InteropServices;
+using System.Runtime.Intrinsics;
+
 namespace LongRecord.Analysis.Quality;
 
 /// <summary>
@@ -61,8 +65,18 @@ internal sealed class LeadSignalBlocks
 
         var n = raw.Length;
         StoreInRing(cond[..n]);
-        // The raw statistics need the sample order (runs of equal samples). The usual path is a compare and a select
-        // per sample: runs of equal samples are common at 360 Hz and 5 µV steps, long ones are rare.
+        if (!SpanStatistics.HasNaN(raw) && TryShortRuns(raw))
+        {
+            var (low, high) = SpanStatistics.MinMax(raw);
+            _current.RawMin = Math.Min(_current.RawMin, low);
+            _current.RawMax = Math.Max(_current.RawMax, high);
+            _current.Valid += n;
+            _written += n;
+            return;
+        }
+
+        // The raw statistics need the sample order (runs of equal samples): a compare and a select per sample where
+        // the block has a gap or a run long enough to be a plateau.
         var stuckRun = _stuckRun;
         var plateauRun = _plateauRun;
         var previous = _previous;
@@ -112,6 +126,83 @@ internal sealed class LeadSignalBlocks
         _written += n;
         _previous = previous;
         _run = run;
+    }
+
+    // The usual block: no gap and no run of equal samples as long as a clipping plateau (runs of equal samples are
+    // common at 360 Hz and 5 µV steps, long ones are rare). The runs are read from a bit mask of "equal to the sample
+    // before", 64 samples at a time; the carried run and the last sample are updated as the per-sample loop would
+    // update them. False, with nothing changed, when some sample would reach a plateau: the caller then takes the loop.
+    private bool TryShortRuns(ReadOnlySpan<float> raw)
+    {
+        var run = _run;
+        var previous = _previous;
+        var plateau = _plateauRun;
+        for (var start = 0; start < raw.Length; start += 64)
+        {
+            var piece = raw.Slice(start, Math.Min(64, raw.Length - start));
+            var n = piece.Length;
+            var mask = EqualToPrevious(piece, previous);
+            var leading = BitOperations.TrailingZeroCount(~mask);
+            leading = Math.Min(leading, n);
+            if (leading > 0 && run + leading >= plateau)
+            {
+                return false; // the run carried in reaches a plateau
+            }
+
+            // P − 1 equal pairs in a row inside the piece: a run of P samples.
+            var ones = mask;
+            for (var shift = 1; shift < plateau - 1 && ones != 0; shift++)
+            {
+                ones &= mask >> shift;
+            }
+
+            if (ones != 0 && plateau - 1 <= n)
+            {
+                return false;
+            }
+
+            if (leading == n)
+            {
+                run += n;
+            }
+            else
+            {
+                // The run at the piece's end: the equal pairs that end it, plus its first sample.
+                var top = mask << (64 - n);
+                run = BitOperations.LeadingZeroCount(~top) + 1;
+            }
+
+            previous = piece[n - 1];
+        }
+
+        _run = run;
+        _previous = previous;
+        return true;
+    }
+
+    // Bit i set where piece[i] equals the sample before it (for i = 0, previous); at most 64 samples, none NaN.
+    private static ulong EqualToPrevious(ReadOnlySpan<float> piece, float previous)
+    {
+        var n = piece.Length;
+        ulong mask = piece[0] == previous ? 1UL : 0UL;
+        var i = 1;
+        if (Vector256.IsHardwareAccelerated)
+        {
+            ref var first = ref MemoryMarshal.GetReference(piece);
+            for (; i + 8 <= n; i += 8)
+            {
+                var here = Vector256.LoadUnsafe(ref first, (nuint)i);
+                var before = Vector256.LoadUnsafe(ref first, (nuint)(i - 1));
+                mask |= (ulong)Vector256.Equals(here, before).ExtractMostSignificantBits() << i;
+            }
+        }
+
+        for (; i < n; i++)
+        {
+            mask |= (piece[i] == piece[i - 1] ? 1UL : 0UL) << i;
+        }
+
+        return mask;
     }
 
     // A sample inside a run of equal samples at least a clipping plateau long. Saturation needs such a run: a recorder

@@ -147,7 +147,7 @@ internal sealed class RhythmContext
 
     private static double Median(Span<double> values)
     {
-        values.Sort();
+        SmallSort.Sort(values);
         var n = values.Length;
         return n % 2 == 1 ? values[n / 2] : 0.5 * (values[n / 2 - 1] + values[n / 2]);
     }
