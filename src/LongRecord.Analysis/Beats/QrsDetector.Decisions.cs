@@ -32,7 +32,9 @@ public sealed partial class QrsDetector
 
     // For each sample: Σ w_k min(LeadCap, (y_k / level_k)^0.75) / Σ w_k — each lead's integrated signal y_k scaled by
     // its QRS level, compressed, clipped so that an artefact on one lead cannot outweigh the others, and weighted by
-    // the lead's quality. Vector lanes do the scalar operations in the scalar order, so every value is the same.
+    // the lead's quality. In single precision, as the integrated signal and the fused result are stored: the two
+    // square roots and the division per sample and lead were the detector's largest cost in double. Vector lanes do
+    // the scalar operations in the scalar order, so every value is the same either way.
     private void FuseRange(int slot, int count)
     {
         var fused = _fused.AsSpan(slot, count);
@@ -42,55 +44,49 @@ public sealed partial class QrsDetector
         for (var k = 0; k < _leads; k++)
         {
             weightSum += _leadWeight[k];
-            AddLead(_integrated[k].AsSpan(slot, count), _leadLevel[k], _leadWeight[k], sums);
+            AddLead(_integrated[k].AsSpan(slot, count), (float)_leadLevel[k], (float)_leadWeight[k], sums);
         }
 
+        var divisor = (float)weightSum;
         var i = 0;
         if (Vector.IsHardwareAccelerated)
         {
             var width = Vector<float>.Count;
-            var divisor = new Vector<double>(weightSum);
+            var divisors = new Vector<float>(divisor);
             for (; i + width <= count; i += width)
             {
-                var low = new Vector<double>(sums[i..]) / divisor;
-                var high = new Vector<double>(sums[(i + width / 2)..]) / divisor;
-                Vector.Narrow(low, high).CopyTo(fused[i..]);
+                (new Vector<float>(sums[i..]) / divisors).CopyTo(fused[i..]);
             }
         }
 
         for (; i < count; i++)
         {
-            fused[i] = (float)(sums[i] / weightSum);
+            fused[i] = sums[i] / divisor;
         }
     }
 
-    private static void AddLead(ReadOnlySpan<float> integrated, double level, double weight, Span<double> sums)
+    private static void AddLead(ReadOnlySpan<float> integrated, float level, float weight, Span<float> sums)
     {
         var i = 0;
         if (Vector.IsHardwareAccelerated)
         {
             var width = Vector<float>.Count;
-            var half = width / 2;
-            var levels = new Vector<double>(level);
-            var weights = new Vector<double>(weight);
-            var cap = new Vector<double>(LeadCap);
+            var levels = new Vector<float>(level);
+            var weights = new Vector<float>(weight);
+            var cap = new Vector<float>((float)LeadCap);
             for (; i + width <= integrated.Length; i += width)
             {
-                Vector.Widen(new Vector<float>(integrated[i..]), out var low, out var high);
-                var a = low / levels;
-                var b = high / levels;
+                var a = new Vector<float>(integrated[i..]) / levels;
                 // Compression x^0.75 = sqrt(x·sqrt(x)).
                 a = Vector.Min(cap, Vector.SquareRoot(a * Vector.SquareRoot(a)));
-                b = Vector.Min(cap, Vector.SquareRoot(b * Vector.SquareRoot(b)));
-                (new Vector<double>(sums[i..]) + weights * a).CopyTo(sums[i..]);
-                (new Vector<double>(sums[(i + half)..]) + weights * b).CopyTo(sums[(i + half)..]);
+                (new Vector<float>(sums[i..]) + weights * a).CopyTo(sums[i..]);
             }
         }
 
         for (; i < integrated.Length; i++)
         {
             var x = integrated[i] / level;
-            sums[i] += weight * Math.Min(LeadCap, Math.Sqrt(x * Math.Sqrt(x)));
+            sums[i] += weight * Math.Min((float)LeadCap, MathF.Sqrt(x * MathF.Sqrt(x)));
         }
     }
 

@@ -47,7 +47,7 @@ public sealed partial class QrsDetector
     private readonly float[][] _slope;
     private readonly float[][] _integrated;
     private readonly float[] _fused;
-    private readonly double[] _fuseSums = new double[FuseBatch];
+    private readonly float[] _fuseSums = new float[FuseBatch];
 
     private readonly double[] _leadLevel;
     private readonly double[] _leadNoise;
