@@ -1,3 +1,5 @@
+using System.Numerics;
+
 namespace LongRecord.Analysis.Quality;
 
 /// <summary>
@@ -195,31 +197,45 @@ internal sealed class BeatResidualTracker
             return float.NaN;
         }
 
-        float sa = 0, sb = 0;
-        for (var t = 0; t < qrsFrom; t++)
+        var offset = (SumDifference(a, b, 0, qrsFrom) + SumDifference(a, b, qrsTo, stop)) / n;
+        return (SumAbsDeviation(a, b, 0, qrsFrom, offset) + SumAbsDeviation(a, b, qrsTo, stop, offset)) / n;
+    }
+
+    // Sums eight points at a time (the lanes added at the end): the segments' sums were chains of dependent additions.
+    private static float SumDifference(float[] a, float[] b, int from, int to)
+    {
+        var t = from;
+        var acc = Vector<float>.Zero;
+        for (; t + Vector<float>.Count <= to; t += Vector<float>.Count)
         {
-            sa += a[t];
-            sb += b[t];
+            acc += new Vector<float>(a, t) - new Vector<float>(b, t);
         }
 
-        for (var t = qrsTo; t < stop; t++)
+        var sum = Vector.Sum(acc);
+        for (; t < to; t++)
         {
-            sa += a[t];
-            sb += b[t];
+            sum += a[t] - b[t];
         }
 
-        var offset = (sa - sb) / n;
-        float sum = 0;
-        for (var t = 0; t < qrsFrom; t++)
+        return sum;
+    }
+
+    private static float SumAbsDeviation(float[] a, float[] b, int from, int to, float offset)
+    {
+        var t = from;
+        var acc = Vector<float>.Zero;
+        var offsets = new Vector<float>(offset);
+        for (; t + Vector<float>.Count <= to; t += Vector<float>.Count)
+        {
+            acc += Vector.Abs(new Vector<float>(a, t) - new Vector<float>(b, t) - offsets);
+        }
+
+        var sum = Vector.Sum(acc);
+        for (; t < to; t++)
         {
             sum += Math.Abs(a[t] - b[t] - offset);
         }
 
-        for (var t = qrsTo; t < stop; t++)
-        {
-            sum += Math.Abs(a[t] - b[t] - offset);
-        }
-
-        return sum / n;
+        return sum;
     }
 }
