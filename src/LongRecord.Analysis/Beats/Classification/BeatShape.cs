@@ -87,6 +87,12 @@ internal sealed class BeatShape
 
     public void BuildSums()
     {
+        if (Leads == 2)
+        {
+            BuildSumsTwo();
+            return;
+        }
+
         for (var k = 0; k < Leads; k++)
         {
             var b = k * (Span + 1);
@@ -98,6 +104,32 @@ internal sealed class BeatShape
                 Prefix[b + i + 1] = Prefix[b + i] + v;
                 PrefixSquares[b + i + 1] = PrefixSquares[b + i] + v * v;
             }
+        }
+    }
+
+    // Two leads' running sums in one loop: four chains of additions side by side instead of two, each in its own order.
+    private void BuildSumsTwo()
+    {
+        var n = Span;
+        var x0 = Samples.AsSpan(0, n);
+        var x1 = Samples.AsSpan(n, n);
+        var p0 = Prefix.AsSpan(0, n + 1);
+        var p1 = Prefix.AsSpan(n + 1, n + 1);
+        var q0 = PrefixSquares.AsSpan(0, n + 1);
+        var q1 = PrefixSquares.AsSpan(n + 1, n + 1);
+        double s0 = 0, s1 = 0, t0 = 0, t1 = 0;
+        p0[0] = p1[0] = q0[0] = q1[0] = 0;
+        for (var i = 0; i < n; i++)
+        {
+            double a = x0[i], b = x1[i];
+            s0 += a;
+            t0 += a * a;
+            s1 += b;
+            t1 += b * b;
+            p0[i + 1] = s0;
+            q0[i + 1] = t0;
+            p1[i + 1] = s1;
+            q1[i + 1] = t1;
         }
     }
 }
