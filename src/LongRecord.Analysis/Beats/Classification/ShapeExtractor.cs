@@ -70,30 +70,26 @@ internal sealed class ShapeExtractor
         for (var k = 0; k < _leads; k++)
         {
             var src = window.Slice(k * length + start, shape.Span);
-            var dst = shape.Samples.AsSpan(k * shape.Span, shape.Span);
-            for (var i = 0; i < src.Length; i++)
+            if (src.ContainsAnyExceptInRange(float.NegativeInfinity, float.PositiveInfinity))
             {
-                if (float.IsNaN(src[i]))
-                {
-                    return false;
-                }
-
-                dst[i] = src[i];
+                return false; // a gap (NaN)
             }
+
+            src.CopyTo(shape.Samples.AsSpan(k * shape.Span, shape.Span));
         }
 
         for (var k = 0; k < _leads; k++)
         {
             var src = window.Slice(k * length + atrialStart, AtrialLength);
+            if (src.ContainsAnyExceptInRange(float.NegativeInfinity, float.PositiveInfinity))
+            {
+                return false;
+            }
+
             var dst = shape.Atrial.AsSpan(k * AtrialLength, AtrialLength);
             double sum = 0;
             for (var i = 0; i < src.Length; i++)
             {
-                if (float.IsNaN(src[i]))
-                {
-                    return false;
-                }
-
                 sum += src[i];
             }
 
