@@ -388,8 +388,7 @@ public sealed partial class QrsDetector
         var n = Math.Min(count, values.Length);
         Span<double> tmp = stackalloc double[n];
         values.AsSpan(0, n).CopyTo(tmp);
-        SmallSort.Sort(tmp);
-        return n % 2 == 1 ? tmp[n / 2] : 0.5 * (tmp[n / 2 - 1] + tmp[n / 2]);
+        return SmallSort.Median(tmp);
     }
 
     private static double Mean(double[] values, int count)

@@ -1,9 +1,9 @@
 namespace LongRecord.Analysis.Beats;
 
 /// <summary>
-/// Ascending sort of the few RRs and peak levels whose medians the beat decisions take once per beat: an insertion
-/// sort in place, which for a dozen values costs less than the general sort's set-up. The order it leaves is the
-/// general sort's (a NaN hands the span to the general sort).
+/// Ascending sort of the few RRs, peak levels and noise ratios whose medians the beat decisions take once per beat:
+/// an insertion sort in place, which for a few dozen values costs less than the general sort's set-up. The order it
+/// leaves is the general sort's (a span holding NaN goes to the general sort, which puts NaN first).
 /// </summary>
 internal static class SmallSort
 {
@@ -11,7 +11,7 @@ internal static class SmallSort
 
     public static void Sort(Span<double> values)
     {
-        if (values.Length > Limit)
+        if (values.Length > Limit || values.ContainsAnyExceptInRange(double.NegativeInfinity, double.PositiveInfinity))
         {
             values.Sort();
             return;
@@ -20,12 +20,6 @@ internal static class SmallSort
         for (var i = 1; i < values.Length; i++)
         {
             var v = values[i];
-            if (double.IsNaN(v) || double.IsNaN(values[0]))
-            {
-                values.Sort(); // NaN first, as the general sort orders it
-                return;
-            }
-
             var j = i - 1;
             while (j >= 0 && values[j] > v)
             {
@@ -35,5 +29,13 @@ internal static class SmallSort
 
             values[j + 1] = v;
         }
+    }
+
+    /// <summary>The median (the mean of the two middle values for an even count); sorts the span in place.</summary>
+    public static double Median(Span<double> values)
+    {
+        Sort(values);
+        var n = values.Length;
+        return n % 2 == 1 ? values[n / 2] : 0.5 * (values[n / 2 - 1] + values[n / 2]);
     }
 }

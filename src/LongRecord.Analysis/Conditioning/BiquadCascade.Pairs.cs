@@ -40,8 +40,8 @@ public sealed partial class BiquadCascade
             return;
         }
 
-        var a = Work(2 * WorkSamples)[..WorkSamples];
-        var b = Work(2 * WorkSamples)[WorkSamples..];
+        var a = Work[..WorkSamples];
+        var b = Work[WorkSamples..];
         for (var done = 0; done < first.Length; done += WorkSamples)
         {
             var n = Math.Min(WorkSamples, first.Length - done);

@@ -87,7 +87,7 @@ public sealed partial class BiquadCascade
         }
 
         var quad = new Quad(cascades[0], cascades[1], cascades[2], cascades[lanes - 1], lanes);
-        var work = cascades[0].LaneWork();
+        var work = cascades[0].LaneWork;
         for (var done = 0; done < count; done += WorkSamples)
         {
             var n = Math.Min(WorkSamples, count - done);

@@ -60,7 +60,7 @@ public sealed partial class BiquadCascade
     /// </remarks>
     public void Process(Span<float> signal)
     {
-        var work = Work(WorkSamples);
+        var work = Work[..WorkSamples];
         for (var done = 0; done < signal.Length; done += WorkSamples)
         {
             var part = signal.Slice(done, Math.Min(WorkSamples, signal.Length - done));
@@ -94,13 +94,10 @@ public sealed partial class BiquadCascade
     private double[]? _work;
     private Vector256<double>[]? _laneWork;
 
-    private Span<double> Work(int length)
-    {
-        _work ??= new double[2 * WorkSamples];
-        return _work.AsSpan(0, length);
-    }
+    // Room for two passes' samples (a pair of cascades run together).
+    private Span<double> Work => _work ??= new double[2 * WorkSamples];
 
-    private Span<Vector256<double>> LaneWork() => _laneWork ??= new Vector256<double>[WorkSamples];
+    private Span<Vector256<double>> LaneWork => _laneWork ??= new Vector256<double>[WorkSamples];
 
     private static void Widen(ReadOnlySpan<float> from, Span<double> to)
     {

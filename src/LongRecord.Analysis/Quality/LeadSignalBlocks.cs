@@ -65,44 +65,8 @@ internal sealed class LeadSignalBlocks
 
         var n = raw.Length;
         StoreInRing(cond[..n]);
-        if (!SpanStatistics.HasNaN(raw) && TryShortRuns(raw))
-        {
-            var (low, high) = SpanStatistics.MinMax(raw);
-            _current.RawMin = Math.Min(_current.RawMin, low);
-            _current.RawMax = Math.Max(_current.RawMax, high);
-            _current.Valid += n;
-            _written += n;
-            return;
-        }
-
-        // The raw statistics need the sample order (runs of equal samples): a compare and a select per sample where
-        // the block has a gap or a run long enough to be a plateau.
-        var stuckRun = _stuckRun;
-        var plateauRun = _plateauRun;
-        var previous = _previous;
-        var run = _run;
         ref var b = ref _current;
-        var missing = 0;
-        for (var i = 0; i < n; i++)
-        {
-            var x = raw[i];
-            if (float.IsNaN(x))
-            {
-                MarkMissing(n - i);
-                missing++;
-                previous = float.NaN;
-                run = 0;
-                continue;
-            }
-
-            run = x == previous ? run + 1 : 1;
-            previous = x;
-            if (run >= plateauRun)
-            {
-                LongRun(ref b, x, run >= stuckRun);
-            }
-        }
-
+        var missing = SpanStatistics.HasNaN(raw) || !TryShortRuns(raw) ? TrackRuns(raw, ref b) : 0;
         if (missing == 0)
         {
             var (min, max) = SpanStatistics.MinMax(raw);
@@ -124,14 +88,48 @@ internal sealed class LeadSignalBlocks
         b.Valid += n - missing;
         b.Missing += missing;
         _written += n;
+    }
+
+    // The raw statistics that need the sample order (runs of equal samples), a compare and a select per sample, for a
+    // block with a gap or a run long enough to be a plateau; returns the missing samples.
+    private int TrackRuns(ReadOnlySpan<float> raw, ref SignalBlock b)
+    {
+        var n = raw.Length;
+        var stuckRun = _stuckRun;
+        var plateauRun = _plateauRun;
+        var previous = _previous;
+        var run = _run;
+        var missing = 0;
+        for (var i = 0; i < n; i++)
+        {
+            var x = raw[i];
+            if (float.IsNaN(x))
+            {
+                MarkMissing(n - i);
+                missing++;
+                previous = float.NaN;
+                run = 0;
+                continue;
+            }
+
+            run = x == previous ? run + 1 : 1;
+            previous = x;
+            if (run >= plateauRun)
+            {
+                LongRun(ref b, x, run >= stuckRun);
+            }
+        }
+
         _previous = previous;
         _run = run;
+        return missing;
     }
 
     // The usual block: no gap and no run of equal samples as long as a clipping plateau (runs of equal samples are
     // common at 360 Hz and 5 µV steps, long ones are rare). The runs are read from a bit mask of "equal to the sample
     // before", 64 samples at a time; the carried run and the last sample are updated as the per-sample loop would
-    // update them. False, with nothing changed, when some sample would reach a plateau: the caller then takes the loop.
+    // update them. False, with nothing changed, when some sample would reach a plateau: the caller then tracks the runs
+    // sample by sample.
     private bool TryShortRuns(ReadOnlySpan<float> raw)
     {
         var run = _run;

@@ -87,36 +87,29 @@ internal sealed class BeatShape
 
     public void BuildSums()
     {
-        if (Leads == 2)
+        // Two leads per loop: four chains of additions side by side instead of two, each in its own order.
+        var k = 0;
+        for (; k + 1 < Leads; k += 2)
         {
-            BuildSumsTwo();
-            return;
+            BuildSums(k, k + 1);
         }
 
-        for (var k = 0; k < Leads; k++)
+        if (k < Leads)
         {
-            var b = k * (Span + 1);
-            Prefix[b] = 0;
-            PrefixSquares[b] = 0;
-            for (var i = 0; i < Span; i++)
-            {
-                double v = Samples[k * Span + i];
-                Prefix[b + i + 1] = Prefix[b + i] + v;
-                PrefixSquares[b + i + 1] = PrefixSquares[b + i] + v * v;
-            }
+            BuildSums(k, k);
         }
     }
 
-    // Two leads' running sums in one loop: four chains of additions side by side instead of two, each in its own order.
-    private void BuildSumsTwo()
+    // Running sums of leads k0 and k1 (the same lead twice for an odd one out: both write the same values).
+    private void BuildSums(int k0, int k1)
     {
         var n = Span;
-        var x0 = Samples.AsSpan(0, n);
-        var x1 = Samples.AsSpan(n, n);
-        var p0 = Prefix.AsSpan(0, n + 1);
-        var p1 = Prefix.AsSpan(n + 1, n + 1);
-        var q0 = PrefixSquares.AsSpan(0, n + 1);
-        var q1 = PrefixSquares.AsSpan(n + 1, n + 1);
+        var x0 = Samples.AsSpan(k0 * n, n);
+        var x1 = Samples.AsSpan(k1 * n, n);
+        var p0 = Prefix.AsSpan(k0 * (n + 1), n + 1);
+        var p1 = Prefix.AsSpan(k1 * (n + 1), n + 1);
+        var q0 = PrefixSquares.AsSpan(k0 * (n + 1), n + 1);
+        var q1 = PrefixSquares.AsSpan(k1 * (n + 1), n + 1);
         double s0 = 0, s1 = 0, t0 = 0, t1 = 0;
         p0[0] = p1[0] = q0[0] = q1[0] = 0;
         for (var i = 0; i < n; i++)

@@ -76,21 +76,11 @@ internal sealed class NoiseFloor
 
     private double Median()
     {
-        // Insertion sort of at most a few dozen values, once per beat.
+        // The lower median of at most a few dozen values, once per beat.
         var n = _count;
-        for (var i = 0; i < n; i++)
-        {
-            var v = _ratios[i];
-            var j = i - 1;
-            while (j >= 0 && _sorted[j] > v)
-            {
-                _sorted[j + 1] = _sorted[j];
-                j--;
-            }
-
-            _sorted[j + 1] = v;
-        }
-
+        var sorted = _sorted.AsSpan(0, n);
+        _ratios.AsSpan(0, n).CopyTo(sorted);
+        SmallSort.Sort(sorted);
         return _sorted[(n - 1) / 2];
     }
 }

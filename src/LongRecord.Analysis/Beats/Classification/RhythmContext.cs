@@ -145,10 +145,5 @@ internal sealed class RhythmContext
         return Median(_irregular.AsSpan(0, n)) / mean;
     }
 
-    private static double Median(Span<double> values)
-    {
-        SmallSort.Sort(values);
-        var n = values.Length;
-        return n % 2 == 1 ? values[n / 2] : 0.5 * (values[n / 2 - 1] + values[n / 2]);
-    }
+    private static double Median(Span<double> values) => SmallSort.Median(values);
 }
