@@ -7,7 +7,7 @@ public sealed record SummaryOptions
     public int BlockSamples { get; init; } = 1 << 16;
 
     /// <summary>
-    /// Run the beats stage's delineation and classification on a second thread, overlapping conditioning, quality and
+    /// Run the beats stage's delineation and classification on threads of their own, overlapping conditioning, quality and
     /// detection (results do not depend on it). Worth it when a core would otherwise stand idle: one recording at a
     /// time on a machine with two or more.
     /// </summary>

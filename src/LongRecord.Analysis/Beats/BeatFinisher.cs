@@ -31,23 +31,36 @@ internal sealed class BeatFinisher
     /// <summary>Delineates and classifies one beat; every beat the classifier has decided goes to <paramref name="decided"/>.</summary>
     public void Finish(in BeatJob job, ReadOnlySpan<float> window, Action<Beat> decided)
     {
+        if (TryDelineate(job, window, out var beat, out var r))
+        {
+            Classify(beat, r, job, window, decided);
+        }
+    }
+
+    /// <summary>
+    /// The first half of <see cref="Finish"/>: delineates the beat and places it in time. False when delineation puts
+    /// it on the complex of the beat before (a second detection, not a beat). <paramref name="r"/> is the beat's
+    /// point inside its window.
+    /// </summary>
+    public bool TryDelineate(in BeatJob job, ReadOnlySpan<float> window, out Beat beat, out int r)
+    {
         window = window[..(_leads * job.Length)];
         var t0 = Stopwatch.GetTimestamp();
         var d = _delineator.Delineate(window, job.Length, job.At, new DelineationContext(job.Previous, job.Next, 0));
-        var t1 = Stopwatch.GetTimestamp();
-        _timings.Delineation += t1 - t0;
+        _timings.Delineation += Stopwatch.GetTimestamp() - t0;
 
         // The beat's point in time is the dominant deflection of its QRS where delineation found one (given beats
         // keep the time the annotation file gives).
-        var r = d.RPeak >= 0 && !_given && job.First + d.RPeak > _lastSample ? d.RPeak : job.At;
+        r = d.RPeak >= 0 && !_given && job.First + d.RPeak > _lastSample ? d.RPeak : job.At;
         if (job.First + r <= _lastSample)
         {
             // Two detections that delineation places on one complex: the second is not a beat.
-            return;
+            beat = default;
+            return false;
         }
 
         _lastSample = job.First + r;
-        var beat = new Beat
+        beat = new Beat
         {
             Sample = job.First + r,
             QrsOnOffset = Offset(d.QrsOnset, r),
@@ -68,8 +81,18 @@ internal sealed class BeatFinisher
             beat.Flags |= BeatFlags.Labelled;
         }
 
-        _classifier.Add(beat.Sample, window, job.Length, r, new BeatMeasurements(beat.QrsMs, beat.PWave));
-        _timings.Classification += Stopwatch.GetTimestamp() - t1;
+        return true;
+    }
+
+    /// <summary>
+    /// The second half of <see cref="Finish"/>, for a beat <see cref="TryDelineate"/> kept, in the same order; every
+    /// beat the classifier has decided goes to <paramref name="decided"/>.
+    /// </summary>
+    public void Classify(in Beat beat, int r, in BeatJob job, ReadOnlySpan<float> window, Action<Beat> decided)
+    {
+        var t0 = Stopwatch.GetTimestamp();
+        _classifier.Add(beat.Sample, window[..(_leads * job.Length)], job.Length, r, new BeatMeasurements(beat.QrsMs, beat.PWave));
+        _timings.Classification += Stopwatch.GetTimestamp() - t0;
         _undecided.Enqueue(beat);
         TakeClassified(decided);
     }
