@@ -46,7 +46,8 @@ internal static class AtrialActivity
         var sinusMean = sinus.Count >= 3 ? PWaveShapes.Mean(sinus) : null;
         var sinusCorrelation = episodeMean is not null && sinusMean is not null && episode.Count >= 3
             ? PWaveShapes.Similarity(episodeMean, sinusMean) : double.NaN;
-        var shapes = episode.Count >= 3 ? PWaveShapes.Count(episode, s.SinusPCorrelation, 0.1) : 0;
+        var dominant = double.NaN;
+        var shapes = episode.Count >= 3 ? PWaveShapes.Count(episode, s.SinusPCorrelation, 0.1, out dominant) : 0;
 
         var width = double.NaN;
         foreach (var w in windows)
@@ -135,6 +136,7 @@ internal static class AtrialActivity
             Finding = finding,
             PBeforeShare = pShare,
             PShapes = shapes,
+            DominantPShare = dominant,
             SinusPCorrelation = sinusCorrelation,
             AtrialRateBpm = atrialBpm,
             PeakShare = peakShare,

@@ -152,6 +152,7 @@ internal static class CandidateDescriber
             UsualQrsShare = t.DominantTemplate < 0 ? double.NaN : (double)usual / n,
             SplitShare = SplitShare(t, first, last, s),
             Regularity = regularity,
+            NormalRegularity = RrRegularity.NormalToNormal(t, first, last),
             Onset = OnsetOffset.Onset(t, first, last, s),
             Offset = OnsetOffset.Offset(t, first, last, s),
             Atrial = atrial,

@@ -34,6 +34,9 @@ internal sealed record ClassifierFacts
     public required double SplitShare { get; init; }
 
     public required RrRegularity Regularity { get; init; }
+
+    /// <summary>Regularity of the intervals between two normal beats (the rhythm under the premature beats).</summary>
+    public required RrRegularity NormalRegularity { get; init; }
     public required OnsetMeasure Onset { get; init; }
     public required OffsetMeasure Offset { get; init; }
     public required AtrialFinding Atrial { get; init; }

@@ -93,9 +93,11 @@ internal static class EpisodeFragments
 
         if (host.RawKind is EpisodeKinds.Af or EpisodeKinds.AfBrief)
         {
-            // A slow narrow "ectopic rhythm" wholly inside AF is AF's own first or irregular beats, labelled S before
-            // the rhythm was known to be AF (in AF, conducted beats are not supraventricular ectopics).
-            return narrowPiece && kind is EpisodeKinds.JunctionalRhythm or EpisodeKinds.EctopicAtrialRhythm
+            // A narrow run of beats labelled S, or a slow narrow "ectopic rhythm", wholly inside AF is AF's own first or
+            // irregular beats, labelled S before the rhythm was known to be AF (in AF, conducted beats are not
+            // supraventricular ectopics). By the classifier's kind: under 30 s the one-kind rule calls a slow one an
+            // SVE run as well.
+            return narrowPiece && piece.RawKind is EpisodeKinds.SveRun or EpisodeKinds.JunctionalRhythm or EpisodeKinds.EctopicAtrialRhythm
                 && piece.First >= host.First && piece.Last <= host.Last;
         }
 

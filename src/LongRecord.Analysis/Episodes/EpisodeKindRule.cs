@@ -5,7 +5,8 @@ namespace LongRecord.Analysis.Episodes;
 /// the sustained duration are an SVE or VE run (with their EC57 run class); 30 s or longer keep their tachycardia kind.
 /// Consecutive ventricular beats under the sustained duration are a VE run at any rate, as EC57 counts runs by beats
 /// (a slow run of three to five is still a run of three to five); only a slow ventricular rhythm of 30 s or more is
-/// an idioventricular rhythm.
+/// an idioventricular rhythm. Supraventricular ectopic beats likewise: three premature atrial beats in a row are an
+/// SVE run whatever their rate, and only 30 s or more of them is a junctional or ectopic atrial rhythm.
 /// </summary>
 internal static class EpisodeKindRule
 {
@@ -13,7 +14,7 @@ internal static class EpisodeKindRule
     {
         if (durationS < sustainedS)
         {
-            if (EpisodeKinds.IsSupraventricularEctopic(kind))
+            if (EpisodeKinds.IsSupraventricularEctopic(kind) || kind is EpisodeKinds.JunctionalRhythm or EpisodeKinds.EctopicAtrialRhythm)
             {
                 kind = EpisodeKinds.SveRun;
             }

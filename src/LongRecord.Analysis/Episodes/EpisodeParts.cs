@@ -46,6 +46,9 @@ public sealed record AtrialFinding
     /// <summary>Distinct P shapes among the beats with a P wave; 0 when not measured.</summary>
     public int PShapes { get; init; }
 
+    /// <summary>Share of the P waves in the largest of those shape groups; NaN when not measured.</summary>
+    public double DominantPShare { get; init; } = double.NaN;
+
     /// <summary>Correlation of the episode's mean P wave with the sinus P wave before it (leads together); NaN when either is missing.</summary>
     public double SinusPCorrelation { get; init; } = double.NaN;
 

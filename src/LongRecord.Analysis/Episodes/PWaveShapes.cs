@@ -113,10 +113,11 @@ internal static class PWaveShapes
     /// Distinct shapes: vectors are grouped (each joins the nearest group whose mean it resembles — similarity at least
     /// <paramref name="similarity"/>, size within a factor of 1.6 — or starts one; then every vector is reassigned to its
     /// nearest final group); a shape counts when its group holds at least <paramref name="minShare"/> of the vectors and
-    /// at least two of them.
+    /// at least two of them. <paramref name="dominantShare"/> is the share of the vectors in the largest group.
     /// </summary>
-    public static int Count(IReadOnlyList<float[]> vectors, double similarity, double minShare)
+    public static int Count(IReadOnlyList<float[]> vectors, double similarity, double minShare, out double dominantShare)
     {
+        dominantShare = double.NaN;
         if (vectors.Count == 0)
         {
             return 0;
@@ -154,6 +155,7 @@ internal static class PWaveShapes
         }
 
         var needed = Math.Max(2, minShare * vectors.Count);
+        dominantShare = (double)counts.Max() / vectors.Count;
         return counts.Count(c => c >= needed);
     }
 

@@ -7,13 +7,24 @@ namespace LongRecord.Analysis.Episodes;
 /// </summary>
 internal readonly record struct RrRegularity(int Intervals, double MeanRrS, double Cv, double SuccessiveChange)
 {
-    public static RrRegularity Of(BeatTrack t, int first, int last)
+    public static RrRegularity Of(BeatTrack t, int first, int last) => Of(t, first, last, normalOnly: false);
+
+    /// <summary>
+    /// The same over the intervals between two normal (N-class) beats only: the underlying rhythm with the premature
+    /// beats' coupling intervals and the pauses after them left out.
+    /// </summary>
+    public static RrRegularity NormalToNormal(BeatTrack t, int first, int last) => Of(t, first, last, normalOnly: true);
+
+    private static bool Counts(BeatTrack t, int i, bool normalOnly) =>
+        t.HasRr(i) && (!normalOnly || (t[i].Class == LongRecord.Analysis.Beats.BeatClass.N && t[i - 1].Class == LongRecord.Analysis.Beats.BeatClass.N));
+
+    private static RrRegularity Of(BeatTrack t, int first, int last, bool normalOnly)
     {
         double sum = 0, squares = 0, change = 0;
         int n = 0, pairs = 0;
         for (var i = first + 1; i <= last; i++)
         {
-            if (!t.HasRr(i))
+            if (!Counts(t, i, normalOnly))
             {
                 continue;
             }
@@ -21,7 +32,7 @@ internal readonly record struct RrRegularity(int Intervals, double MeanRrS, doub
             sum += t.RrS[i];
             squares += (double)t.RrS[i] * t.RrS[i];
             n++;
-            if (i > first + 1 && t.HasRr(i - 1))
+            if (i > first + 1 && Counts(t, i - 1, normalOnly))
             {
                 change += Math.Abs(t.RrS[i] - t.RrS[i - 1]);
                 pairs++;

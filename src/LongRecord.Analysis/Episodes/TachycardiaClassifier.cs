@@ -15,6 +15,9 @@ namespace LongRecord.Analysis.Episodes;
 /// </summary>
 internal static class TachycardiaClassifier
 {
+    // Normal-to-normal intervals needed to judge the rhythm under premature beats (our choice).
+    private const int MinNormalIntervals = 8;
+
     public static (string? Kind, QrsWidth Width, double QrsMs, string Evidence, double Confidence) Classify(ClassifierFacts f, EpisodeSettings s)
     {
         var e = new List<string>();
@@ -31,7 +34,9 @@ internal static class TachycardiaClassifier
 
         if (f.Atrial.PShapes > 0)
         {
-            e.Add(Invariant($"{f.Atrial.PShapes} P shape(s)"));
+            e.Add(f.Atrial.PShapes > 1
+                ? Invariant($"{f.Atrial.PShapes} P shapes (the commonest {100 * f.Atrial.DominantPShare:0} %)")
+                : Invariant($"{f.Atrial.PShapes} P shape(s)"));
         }
 
         if (!double.IsNaN(f.Atrial.SinusPCorrelation))
@@ -178,9 +183,17 @@ internal static class TachycardiaClassifier
             return width == QrsWidth.Broad || a.PBeforeShare < s.PBeforeQrsShare ? (EpisodeKinds.IdioventricularRhythm, 0.7) : (null, 0);
         }
 
+        // Consecutive beats the beats stage labelled S (premature, of a supraventricular shape), under the sustained
+        // duration: an SVE run by the EC57 count, whatever the rate, regularity or P waves of so few beats suggest.
+        if (!byRhythmStage && f.Source.HasFlag(CandidateSource.SveRun) && f.SShare >= 0.5 && f.DurationS < s.SustainedS)
+        {
+            e.Add("consecutive S beats by label");
+            return (EpisodeKinds.SveRun, 0.6);
+        }
+
         if (!fast)
         {
-            if (a.Finding == "flutter-waves")
+            if (a.Finding == "flutter-waves" && !SinusPLed(a, s))
             {
                 return (EpisodeKinds.Flutter, 0.7);
             }
@@ -214,13 +227,26 @@ internal static class TachycardiaClassifier
 
                 if (!double.IsNaN(a.SinusPCorrelation))
                 {
-                    return a.SinusPCorrelation >= s.SinusPCorrelation
-                        ? (EpisodeKinds.SinusTachycardia, f.Onset.Type == "abrupt" ? 0.6 : 0.9)
-                        : (EpisodeKinds.AtrialTachycardia, 0.8);
+                    if (a.SinusPCorrelation >= s.SinusPCorrelation)
+                    {
+                        return (EpisodeKinds.SinusTachycardia, f.Onset.Type == "abrupt" ? 0.6 : 0.9);
+                    }
+
+                    if (SinusEdges(f))
+                    {
+                        e.Add("P unlike the sinus P, but a gradual start and end without premature atrial beats");
+                        return (EpisodeKinds.SinusTachycardia, 0.5);
+                    }
+
+                    return (EpisodeKinds.AtrialTachycardia, 0.8);
                 }
 
+                // With no sinus P to compare, the edges decide: a sinus tachycardia rises and falls gradually, so an
+                // abrupt start, or an abrupt end where the start was not seen (the recording's start, or noise before
+                // it), speaks for an atrial focus.
                 e.Add("no sinus P to compare");
-                return f.Onset.Type == "abrupt" ? (EpisodeKinds.AtrialTachycardia, 0.4) : (EpisodeKinds.SinusTachycardia, 0.5);
+                var abruptEdge = f.Onset.Type == "abrupt" || (f.Onset.Type == "not-observed" && f.Offset.Type == "abrupt");
+                return abruptEdge ? (EpisodeKinds.AtrialTachycardia, 0.4) : (EpisodeKinds.SinusTachycardia, 0.5);
             }
 
             if (a.PBeforeShare <= s.PAbsentShare || double.IsNaN(a.PBeforeShare))
@@ -232,12 +258,23 @@ internal static class TachycardiaClassifier
             return f.Onset.Type == "abrupt" ? (EpisodeKinds.Svt, 0.4) : (EpisodeKinds.SinusTachycardia, 0.4);
         }
 
-        if (a.Finding == "flutter-waves")
+        if (a.Finding == "flutter-waves" && !SinusPLed(a, s))
         {
             return (EpisodeKinds.Flutter, 0.8);
         }
 
-        if (a.PBeforeShare >= s.MultifocalPShare && a.PShapes >= s.MultifocalPShapes)
+        // Sinus rhythm with frequent premature atrial beats: the irregularity is the premature beats' own, and the
+        // intervals between two normal beats stay regular. In AF and in multifocal atrial tachycardia the conducted
+        // beats themselves come irregularly.
+        if (!byRhythmStage && SinusUnderPremature(f, s))
+        {
+            e.Add(Invariant($"regular between the premature beats (normal-to-normal RR change {f.NormalRegularity.SuccessiveChange:0.000} over {f.NormalRegularity.Intervals} intervals)"));
+            return (EpisodeKinds.SinusWithPacs, 0.6);
+        }
+
+        // Three or more P shapes with none leading: multifocal. One shape holding most P waves is one pacemaker with
+        // premature beats of other shapes.
+        if (a.PBeforeShare >= s.MultifocalPShare && a.PShapes >= s.MultifocalPShapes && !(a.DominantPShare >= s.DominantPShare))
         {
             return (EpisodeKinds.Mat, 0.7);
         }
@@ -251,7 +288,9 @@ internal static class TachycardiaClassifier
             return (EpisodeKinds.AtrialTachycardia, 0.4);
         }
 
-        if (a.PBeforeShare >= s.PBeforeQrsShare && f.PrematureShare >= 0.1 && !(a.SinusPCorrelation < s.SinusPCorrelation))
+        // The P wave of the sinus beats before the episode before every QRS, and premature beats: sinus with PACs even
+        // where the rhythm under them wanders. With no sinus P to compare, only the rule above (regular under them) says so.
+        if (a.PBeforeShare >= s.PBeforeQrsShare && f.PrematureShare >= 0.1 && a.SinusPCorrelation >= s.SinusPCorrelation)
         {
             return (EpisodeKinds.SinusWithPacs, 0.6);
         }
@@ -264,6 +303,12 @@ internal static class TachycardiaClassifier
         // A P wave before every QRS decides by its shape: unlike the sinus P, the rhythm is atrial, not sinus.
         if (a.PBeforeShare >= s.PBeforeQrsShare)
         {
+            if (a.SinusPCorrelation < s.SinusPCorrelation && SinusEdges(f))
+            {
+                e.Add("P unlike the sinus P, but a gradual start and end without premature atrial beats");
+                return (EpisodeKinds.SinusTachycardia, 0.4);
+            }
+
             return a.SinusPCorrelation < s.SinusPCorrelation ? (EpisodeKinds.AtrialTachycardia, 0.4) : (EpisodeKinds.SinusTachycardia, 0.4);
         }
 
@@ -277,6 +322,24 @@ internal static class TachycardiaClassifier
 
         return (EpisodeKinds.UnclassifiedTachycardia, 0.3);
     }
+
+    // A P wave like the sinus P before the QRS of most beats: the atria are led by the sinus node, and RR intervals that
+    // fall near multiples of a short cycle are chance, not flutter waves.
+    private static bool SinusPLed(AtrialFinding a, EpisodeSettings s) =>
+        a.PBeforeShare >= s.PBeforeQrsShare && a.SinusPCorrelation >= s.SinusPCorrelation;
+
+    // Enough normal-to-normal intervals to judge the rhythm under the premature beats, and that rhythm regular; the
+    // premature beats supraventricular ones, and P waves before most QRS.
+    private static bool SinusUnderPremature(ClassifierFacts f, EpisodeSettings s) =>
+        f.PrematureShare >= 0.1 && f.SShare < 0.5 && f.VShare < 0.1
+        && f.NormalRegularity.Intervals >= MinNormalIntervals && f.NormalRegularity.SuccessiveChange <= s.IrregularRrChange
+        && f.Atrial.PBeforeShare >= s.MultifocalPShare;
+
+    // A sinus tachycardia rises and falls gradually: both edges gradual and few beats labelled premature atrial
+    // outweigh a P wave whose shape differs from the resting sinus P — at tachycardia rates the P rides on the
+    // preceding T wave, and its measured shape changes with the overlap.
+    private static bool SinusEdges(ClassifierFacts f) =>
+        f.Onset.Type == "gradual" && f.Offset.Type == "gradual" && f.SShare < 0.5;
 
     // AF keeps the rhythm stage's verdict on its length (af from the minimum AF duration, af-brief below).
     private static string Af(ClassifierFacts f, EpisodeSettings s) => f.RhythmAfLong ? EpisodeKinds.Af : EpisodeKinds.AfBrief;

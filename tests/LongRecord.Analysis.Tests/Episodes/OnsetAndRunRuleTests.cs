@@ -91,11 +91,15 @@ public sealed class OnsetAndRunRuleTests
     [InlineData("svt", 45.0, 130, "svt", "")]
     [InlineData("sinus-tachycardia", 20.0, 40, "sinus-tachycardia", "")]
     // EC57 counts ventricular runs by beats, not rate: a slow run of four is a run of 3–5; a slow ventricular rhythm
-    // of 30 s or more is an idioventricular rhythm; slow junctional beats are escape beats (N class), never a run.
+    // of 30 s or more is an idioventricular rhythm. A slow "junctional" or "ectopic atrial" candidate is made of beats
+    // the beats stage labelled S (premature), so under 30 s it is an SVE run by the same count; only 30 s or more of
+    // them is a rhythm of its own (EC57 counts runs of three or more ectopic beats by beats, from memory).
     [InlineData("idioventricular-rhythm", 3.0, 4, "ve-run", "run-3-5")]
     [InlineData("idioventricular-rhythm", 12.0, 9, "ve-run", "run-6+")]
     [InlineData("idioventricular-rhythm", 40.0, 30, "idioventricular-rhythm", "")]
-    [InlineData("junctional-rhythm", 5.0, 5, "junctional-rhythm", "")]
+    [InlineData("junctional-rhythm", 5.0, 5, "sve-run", "run-3-5")]
+    [InlineData("ectopic-atrial-rhythm", 9.0, 8, "sve-run", "run-6+")]
+    [InlineData("junctional-rhythm", 40.0, 35, "junctional-rhythm", "")]
     public void KindRule_Under30sEctopicIsARun_WithItsEc57RunClass(string kind, double durationS, int beats, string expectedKind, string expectedClass)
     {
         var (k, runClass) = EpisodeKindRule.Apply(kind, durationS, beats, s_settings.SustainedS);

@@ -1,0 +1,106 @@
+using LongRecord.Analysis.Beats;
+using LongRecord.Analysis.Episodes;
+using LongRecord.Analysis.Settings;
+
+namespace LongRecord.Analysis.Tests.Episodes;
+
+/// <summary>
+/// Narrow tachycardias with P waves, told apart by their RR intervals alone (no signal: P shapes are not compared), on
+/// hand-worked sequences. The rules are the trade's (the brief's clinical logic; the electrocardiography textbooks, from
+/// memory): a sinus tachycardia starts and ends gradually, a focal atrial one abruptly; sinus rhythm with frequent
+/// premature atrial beats is regular between them, while in AF and multifocal atrial tachycardia the conducted beats
+/// themselves come irregularly. Three or more consecutive S beats are a run by the EC57 count, whatever their rate.
+/// </summary>
+public sealed class SinusOrAtrialTests
+{
+    private static readonly AnalysisSettings Settings = AnalysisSettings.Default;
+
+    [Fact]
+    public void SinusTachycardiaWithAPrematureAtrialBeatEveryFifth_RegularBetweenThem_IsSinusWithPacs()
+    {
+        // 20 s of sinus at 75/min, then 40 s at 107/min (RR 0.56 s) in which every fifth beat comes 0.40 s after the
+        // one before, followed by a 0.72 s pause; then sinus at 75/min again.
+        var rr = new List<double>();
+        rr.AddRange(EpisodeTrack.Repeat(0.8, 25));
+        var fast = new List<double>();
+        for (var k = 0; k < 75; k++)
+        {
+            fast.Add(k % 5 == 3 ? 0.40 : k % 5 == 4 ? 0.72 : 0.56);
+        }
+
+        rr.AddRange(fast);
+        rr.AddRange(EpisodeTrack.Repeat(0.8, 25));
+        // Beat i ends RR i − 1: the premature beats end the 0.40 s intervals.
+        var kind = KindOf(rr, i => i > 0 && i - 1 < rr.Count && rr[i - 1] == 0.40 ? BeatClass.S : BeatClass.N);
+
+        Assert.Equal(EpisodeKinds.SinusWithPacs, kind);
+    }
+
+    [Fact]
+    public void SamePrematureBeats_IrregularBetweenThem_IsNotSinusWithPacs()
+    {
+        // As above, but the intervals between normal beats vary beat to beat by about 20 % (0.45–0.58 s, all above
+        // 100/min), so the rhythm under the premature beats is itself irregular.
+        double[] normal = [0.46, 0.58, 0.49, 0.57, 0.45];
+        var rr = new List<double>();
+        rr.AddRange(EpisodeTrack.Repeat(0.8, 25));
+        for (var k = 0; k < 75; k++)
+        {
+            rr.Add(k % 5 == 3 ? 0.40 : k % 5 == 4 ? 0.72 : normal[k % normal.Length]);
+        }
+
+        rr.AddRange(EpisodeTrack.Repeat(0.8, 25));
+        var kind = KindOf(rr, i => i > 0 && i - 1 < rr.Count && rr[i - 1] == 0.40 ? BeatClass.S : BeatClass.N);
+
+        Assert.NotNull(kind);
+        Assert.NotEqual(EpisodeKinds.SinusWithPacs, kind);
+    }
+
+    [Theory]
+    [InlineData(0.8, "atrial-tachycardia")]   // ends at once: 0.40 s → 0.80 s
+    [InlineData(0.42, "sinus-tachycardia")]   // ends gradually: the rate falls back over 25 beats
+    public void RegularTachycardiaFromTheRecordingsStart_TheEndDecides(double rrAfterS, string expected)
+    {
+        // 150/min from the first beat (so its onset is not observed), 45 s, P wave before every QRS.
+        var rr = new List<double>(EpisodeTrack.Repeat(0.40, 112));
+        if (rrAfterS < 0.5)
+        {
+            for (var k = 0; k < 25; k++)
+            {
+                rr.Add(0.40 + k * 0.016);
+            }
+        }
+
+        rr.AddRange(EpisodeTrack.Repeat(0.8, 20));
+        var kind = KindOf(rr, _ => BeatClass.N);
+
+        Assert.Equal(expected, kind);
+    }
+
+    [Theory]
+    [InlineData(0.8, 0.62)]    // three S beats at about 97/min after sinus at 75/min: slow, still a run of three
+    [InlineData(0.56, 0.47)]   // three S beats (0.47, 0.52, 0.41 s) inside a sinus tachycardia at 107/min
+    public void ThreeConsecutiveBeatsLabelledS_AreAnSveRun_WhateverTheirRate(double sinusRrS, double firstS)
+    {
+        // As SVDB 863 at 801 s (reference S S S with RR 0.47, 0.52, 0.41 s inside sinus at 0.57 s).
+        double[] run = sinusRrS > 0.7 ? [firstS, 0.60, 0.64] : [firstS, 0.52, 0.41];
+        List<double> rr = [.. EpisodeTrack.Repeat(sinusRrS, 40), .. run, sinusRrS * 1.2, .. EpisodeTrack.Repeat(sinusRrS, 40)];
+        var t = EpisodeTrack.FromRr(rr, i => i is >= 41 and <= 43 ? BeatClass.S : BeatClass.N, pWaveOf: _ => 1, templateOf: _ => 0, qrsMsOf: _ => 90f);
+        var candidates = CandidateFinder.Find(t, EpisodeTrack.NoRhythm(rr.Sum() + 2), Settings.Episodes, out _, out _);
+        var sRun = Assert.Single(candidates, c => c.Source.HasFlag(CandidateSource.SveRun));
+
+        var draft = CandidateDescriber.Describe(sRun, t, null, Settings);
+
+        Assert.NotNull(draft);
+        Assert.Equal(EpisodeKinds.SveRun, draft!.Episode.Kind);
+        Assert.Equal(3, draft.Episode.Beats);
+    }
+
+    private static string? KindOf(List<double> rr, Func<int, BeatClass> classOf)
+    {
+        var t = EpisodeTrack.FromRr(rr, classOf, pWaveOf: _ => 1, templateOf: _ => 0, qrsMsOf: _ => 90f);
+        var candidates = CandidateFinder.Find(t, EpisodeTrack.NoRhythm(rr.Sum() + 2), Settings.Episodes, out _, out _);
+        var fast = Assert.Single(candidates, c => c.Source.HasFlag(CandidateSource.Fast));
+        return CandidateDescriber.Describe(fast, t, null, Settings)?.Episode.Kind;
+    }
+}
