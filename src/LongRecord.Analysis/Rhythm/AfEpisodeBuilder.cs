@@ -3,8 +3,8 @@ using LongRecord.Analysis.Settings;
 namespace LongRecord.Analysis.Rhythm;
 
 /// <summary>
-/// Turns the detector's AF-like intervals into episodes: bridges short interruptions, splits at unanalysable time,
-/// and keeps stretches of at least the minimum duration as AF (the rest as af-brief). Sets the Af and AfBrief flags.
+/// Turns the detector's AF-like intervals into episodes: bridges short interruptions (judged non-AF, unjudged, or
+/// unanalysable with AF on both sides), splits at longer unanalysable time, and keeps stretches of at least the minimum duration as AF (the rest as af-brief). Sets the Af and AfBrief flags.
 /// </summary>
 internal static class AfEpisodeBuilder
 {
@@ -21,7 +21,7 @@ internal static class AfEpisodeBuilder
                 continue;
             }
 
-            // Run of AF-like intervals [i, j), bridging non-AF stretches shorter than BridgeS inside one analysable stretch.
+            // Run of AF-like intervals [i, j), bridging short non-AF, unjudged or unanalysable stretches between them.
             var j = i;
             while (true)
             {
@@ -30,13 +30,25 @@ internal static class AfEpisodeBuilder
                     j++;
                 }
 
-                // Judged non-AF time counts against BridgeS; unjudged time (too little kept) against BridgeUnjudgedS.
+                // Judged non-AF time counts against BridgeS; unjudged time (too little kept) against BridgeUnjudgedS;
+                // unanalysable time (noise, a lead off for a moment: fibrillation does not stop because the signal was
+                // unreadable) against BridgeUnanalysableS — its intervals are not flagged AF, the burden counts
+                // analysable time only.
                 var k = j;
                 var gapS = 0.0;
                 var unjudgedS = 0.0;
-                while (k < n && rr.IsAnalysable(k) && !rr.Has(k, IntervalFlags.AfLike) && gapS < s.BridgeS && unjudgedS < s.BridgeUnjudgedS)
+                var unanalysableS = 0.0;
+                // After unreadable time the detector's window refills before it judges again: that unjudged time is
+                // part of the interruption, so the unjudged allowance grows by the unanalysable one.
+                double UnjudgedAllowance() => unanalysableS > 0 ? s.BridgeUnjudgedS + s.BridgeUnanalysableS : s.BridgeUnjudgedS;
+                while (k < n && !(rr.IsAnalysable(k) && rr.Has(k, IntervalFlags.AfLike))
+                    && gapS < s.BridgeS && unjudgedS < UnjudgedAllowance() && unanalysableS < s.BridgeUnanalysableS)
                 {
-                    if (rr.Has(k, IntervalFlags.Unjudged))
+                    if (!rr.IsAnalysable(k))
+                    {
+                        unanalysableS += rr.TimeS(k) - rr.TimeS(k - 1);
+                    }
+                    else if (rr.Has(k, IntervalFlags.Unjudged))
                     {
                         unjudgedS += rr.RrS[k];
                     }
@@ -48,7 +60,8 @@ internal static class AfEpisodeBuilder
                     k++;
                 }
 
-                if (k < n && k > j && gapS < s.BridgeS && unjudgedS < s.BridgeUnjudgedS && rr.IsAnalysable(k) && rr.Has(k, IntervalFlags.AfLike))
+                if (k < n && k > j && gapS < s.BridgeS && unjudgedS < UnjudgedAllowance() && unanalysableS < s.BridgeUnanalysableS
+                    && rr.IsAnalysable(k) && rr.Has(k, IntervalFlags.AfLike))
                 {
                     j = k;
                     continue;
@@ -62,9 +75,16 @@ internal static class AfEpisodeBuilder
             var endS = rr.TimeS(j - 1);
             var kind = endS - startS >= s.MinEpisodeS ? RhythmEpisode.AfKind : RhythmEpisode.AfBriefKind;
             var flag = kind == RhythmEpisode.AfKind ? IntervalFlags.Af : IntervalFlags.AfBrief;
+            var analysableS = 0.0;
+            var analysableIntervals = 0;
             for (var q = i; q < j; q++)
             {
-                rr.Flags[q] |= flag;
+                if (rr.IsAnalysable(q))
+                {
+                    rr.Flags[q] |= flag;
+                    analysableS += rr.RrS[q];
+                    analysableIntervals++;
+                }
             }
 
             var (maxBpm, minBpm) = RateAverager.Extremes(rr, i, j, averagingBeats);
@@ -74,7 +94,7 @@ internal static class AfEpisodeBuilder
                 StartS = startS,
                 EndS = endS,
                 Beats = j - i + 1,
-                MeanBpm = 60.0 * (j - i) / (endS - startS),
+                MeanBpm = 60.0 * analysableIntervals / analysableS,
                 MaxBpm = maxBpm,
                 MinBpm = minBpm,
                 OnsetObserved = rr.IsAnalysable(i - 1),

@@ -102,6 +102,13 @@ public sealed record AfSettings
     public double BridgeUnjudgedS { get; init; } = 5;
 
     /// <summary>
+    /// Unanalysable stretches (noise, lead-off) shorter than this, between AF on both sides, are bridged as well:
+    /// fibrillation does not stop because the signal was unreadable for a few seconds; the stretch's own time is not AF
+    /// time. 10 s: our choice (as long as the longest beat gap that still counts as an interval, <c>maxBeatGapS</c>).
+    /// </summary>
+    public double BridgeUnanalysableS { get; init; } = 10;
+
+    /// <summary>
     /// Shortest AF episode, seconds. 30 s: HRS/EHRA/ECAS/APHRS/SOLAECE expert consensus statement on catheter and
     /// surgical ablation of atrial fibrillation (Calkins H et al., Heart Rhythm 2017;14:e275-e444). Shorter AF-like
     /// stretches are reported as af-brief and not counted in the burden.
@@ -130,6 +137,7 @@ public sealed record AfSettings
         new("atrialRelief", s => s.AtrialRelief, (s, v) => s with { AtrialRelief = v }, 0, 1),
         new("bridgeS", s => s.BridgeS, (s, v) => s with { BridgeS = v }, 0, 120),
         new("bridgeUnjudgedS", s => s.BridgeUnjudgedS, (s, v) => s with { BridgeUnjudgedS = v }, 0, 600),
+        new("bridgeUnanalysableS", s => s.BridgeUnanalysableS, (s, v) => s with { BridgeUnanalysableS = v }, 0, 600),
         new("minEpisodeS", s => s.MinEpisodeS, (s, v) => s with { MinEpisodeS = v }, 1, 3600),
     ];
 }

@@ -153,6 +153,47 @@ public sealed class EpisodeRuleTests
         Assert.Equal(rr.Count + 1, RhythmRows.Summary(result).First(kv => kv.Key == "total_beats").Value);
     }
 
+    [Theory]
+    [InlineData(4.0, 1)]    // 4 s of noise inside AF: one episode across it
+    [InlineData(25.0, 2)]   // 25 s of noise: longer than the 10 s bridged, two episodes
+    public void ShortUnanalysableStretchInsideAf_DoesNotSplitIt_NorCountsAsAf(double noiseS, int episodes)
+    {
+        // Fibrillation (independent RR draws, uniform 0.45–1.15 s: a synthetic stand-in, common practice, no source)
+        // for 120 s, noise with no beats for noiseS, fibrillation for 120 s more; sinus (1.0 s) before and after.
+        var random = new Random(11);
+        var rr = new List<double>(Enumerable.Repeat(1.0, 60));
+        void Fibrillate()
+        {
+            for (var t = 0.0; t < 120; t += rr[^1])
+            {
+                rr.Add(0.45 + 0.7 * random.NextDouble());
+            }
+        }
+
+        Fibrillate();
+        var noiseStartS = 1.0 + rr.Sum();
+        rr.Add(noiseS);                                 // the interval across the noise: its two beats on either side
+        var noiseEndS = 1.0 + rr.Sum();
+        Fibrillate();
+        rr.AddRange(Enumerable.Repeat(1.0, 60));
+        var beats = SyntheticBeats.FromRr(rr);
+        var endS = SyntheticBeats.EndS(beats);
+        var result = RhythmAnalyser.Analyse(new RhythmInput
+        {
+            Beats = beats,
+            ReferenceRateHz = 1000,
+            DurationS = endS,
+            Stretches = [new SignalStretch(0, noiseStartS + 0.1, true), new SignalStretch(noiseStartS + 0.1, noiseEndS - 0.1, false, "noise"), new SignalStretch(noiseEndS - 0.1, endS, true)],
+        });
+
+        var af = result.Episodes.Where(e => e.Kind == RhythmEpisode.AfKind).ToList();
+        Assert.True(episodes == af.Count, string.Join(", ", result.Episodes.Select(e => $"{e.Kind} {e.StartS:F1}-{e.EndS:F1}")) + $" noise {noiseStartS:F1}-{noiseEndS:F1}");
+        Assert.Contains(af, e => e.StartS < noiseStartS && e.EndS > (episodes == 1 ? noiseEndS : noiseStartS - 60));
+        // The noise is no AF time: the burden's AF seconds stay within the fibrillation itself (2 × 120 s, less the
+        // detector's edges).
+        Assert.True(result.Summary.AfS <= 240 + 2, $"AF {result.Summary.AfS:F1} s");
+    }
+
     [Fact]
     public void UnanalysableStretch_IsLeftOutOfTheTime()
     {
