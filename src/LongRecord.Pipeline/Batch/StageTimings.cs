@@ -90,7 +90,7 @@ public sealed class StageTimings
         text.Append(CultureInfo.InvariantCulture, $" (total {TotalS:F2} s)");
         if (_overlapped.Count > 0)
         {
-            text.Append("; beats on two threads, thread time:");
+            text.Append("; beats on more than one thread, thread time (wall, waiting for a core included):");
             foreach (var (stage, s) in _overlapped)
             {
                 text.Append(CultureInfo.InvariantCulture, $" {stage} {s:F2} s");
