@@ -193,7 +193,7 @@ internal static class TachycardiaClassifier
 
         if (!fast)
         {
-            if (a.Finding == "flutter-waves" && !SinusPLed(a, s))
+            if (a.Finding == "flutter-waves" && !SinusPLed(a, s, e))
             {
                 return (EpisodeKinds.Flutter, 0.7);
             }
@@ -209,7 +209,7 @@ internal static class TachycardiaClassifier
         var rate = f.MedianBpm;
         if (!irregular)
         {
-            if (a.Finding == "flutter-waves-locked")
+            if (a.Finding == "flutter-waves-locked" && !SinusPLed(a, s, e))
             {
                 return (EpisodeKinds.Flutter, 0.6 + 0.3 * Math.Clamp((a.LockedWaveIndex - s.LockedWaveIndex) / (1 - s.LockedWaveIndex), 0, 1));
             }
@@ -258,7 +258,7 @@ internal static class TachycardiaClassifier
             return f.Onset.Type == "abrupt" ? (EpisodeKinds.Svt, 0.4) : (EpisodeKinds.SinusTachycardia, 0.4);
         }
 
-        if (a.Finding == "flutter-waves" && !SinusPLed(a, s))
+        if (a.Finding == "flutter-waves" && !SinusPLed(a, s, e))
         {
             return (EpisodeKinds.Flutter, 0.8);
         }
@@ -324,9 +324,17 @@ internal static class TachycardiaClassifier
     }
 
     // A P wave like the sinus P before the QRS of most beats: the atria are led by the sinus node, and RR intervals that
-    // fall near multiples of a short cycle are chance, not flutter waves.
-    private static bool SinusPLed(AtrialFinding a, EpisodeSettings s) =>
-        a.PBeforeShare >= s.PBeforeQrsShare && a.SinusPCorrelation >= s.SinusPCorrelation;
+    // fall near multiples of a short cycle, or a mean cycle that repeats within itself, are not flutter waves.
+    private static bool SinusPLed(AtrialFinding a, EpisodeSettings s, List<string> e)
+    {
+        var led = a.PBeforeShare >= s.PBeforeQrsShare && a.SinusPCorrelation >= s.SinusPCorrelation;
+        if (led)
+        {
+            e.Add("a P like the sinus P before most QRS: the atrial rate found is not flutter");
+        }
+
+        return led;
+    }
 
     // Enough normal-to-normal intervals to judge the rhythm under the premature beats, and that rhythm regular; the
     // premature beats supraventricular ones, and P waves before most QRS.

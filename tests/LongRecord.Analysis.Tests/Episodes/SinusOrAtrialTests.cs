@@ -104,3 +104,56 @@ public sealed class SinusOrAtrialTests
         return CandidateDescriber.Describe(fast, t, null, Settings)?.Episode.Kind;
     }
 }
+
+/// <summary>
+/// Flutter waves against a sinus P, on the classifier's facts directly (what the signal stage would measure, set by
+/// hand): a regular narrow rhythm at 110/min whose mean cycle repeats within itself (the locked-wave finding) is still
+/// sinus when a P like the sinus P stands before most QRS — as in MITDB 215 at 1210 s (no flutter label; P before 86 %
+/// of QRS, 0.98 like the sinus P) — and flutter when no such P is there. The rule is the trade's: flutter has no P waves.
+/// </summary>
+public sealed class FlutterOrSinusPTests
+{
+    [Theory]
+    [InlineData(0.86, 0.98, "sinus-tachycardia")]
+    [InlineData(0.40, -0.90, "flutter")]
+    public void LockedAtrialWaves_WithASinusPBeforeMostQrs_AreNotFlutter(double pBefore, double pVsSinus, string expected)
+    {
+        var s = AnalysisSettings.Default.Episodes;
+        var facts = new ClassifierFacts
+        {
+            DurationS = 64,
+            MeanBpm = 110,
+            MedianBpm = 110,
+            BeatQrsMs = 90,
+            MeanComplexQrsMs = 90,
+            VShare = 0,
+            SShare = 0,
+            NShare = 1,
+            PrematureShare = 0,
+            UsualQrsShare = 1,
+            OddTemplateShare = 0,
+            SplitShare = 0,
+            Regularity = new RrRegularity(117, 0.545, 0.04, 0.03),
+            NormalRegularity = new RrRegularity(117, 0.545, 0.04, 0.03),
+            Onset = new OnsetMeasure("gradual", 0.95, "none", 0),
+            Offset = new OffsetMeasure("gradual", 1.05, 0, "gradual", double.NaN),
+            Atrial = new AtrialFinding
+            {
+                Finding = "flutter-waves-locked",
+                PBeforeShare = pBefore,
+                PShapes = 1,
+                SinusPCorrelation = pVsSinus,
+                AtrialRateBpm = 220,
+                LockedWaveIndex = 0.85,
+            },
+            AfShare = 0,
+            RhythmAfLong = false,
+            Source = CandidateSource.Fast,
+        };
+
+        var (kind, _, _, evidence, _) = TachycardiaClassifier.Classify(facts, s);
+
+        Assert.Equal(expected, kind);
+        Assert.Equal(expected == "sinus-tachycardia", evidence.Contains("not flutter", StringComparison.Ordinal));
+    }
+}
