@@ -18,6 +18,9 @@ internal static class TachycardiaClassifier
     // Normal-to-normal intervals needed to judge the rhythm under premature beats (our choice).
     private const int MinNormalIntervals = 8;
 
+    // How far the RR on either side of a sinus tachycardia may differ from its edges' (our choice).
+    private const double DriftFraction = 0.1;
+
     public static (string? Kind, QrsWidth Width, double QrsMs, string Evidence, double Confidence) Classify(ClassifierFacts f, EpisodeSettings s)
     {
         var e = new List<string>();
@@ -343,11 +346,14 @@ internal static class TachycardiaClassifier
         && f.NormalRegularity.Intervals >= MinNormalIntervals && f.NormalRegularity.SuccessiveChange <= s.IrregularRrChange
         && f.Atrial.PBeforeShare >= s.MultifocalPShare;
 
-    // A sinus tachycardia rises and falls gradually: both edges gradual and few beats labelled premature atrial
-    // outweigh a P wave whose shape differs from the resting sinus P — at tachycardia rates the P rides on the
-    // preceding T wave, and its measured shape changes with the overlap.
+    // A sinus tachycardia rises and falls gradually: a rate that drifts across the tachycardia threshold (the RR on
+    // either side within 10 % of the episode's edges — a focal atrial tachycardia's warm-up, a few beats that shorten
+    // by a fifth or more, does not pass) and few beats labelled premature atrial outweigh a P wave whose shape differs
+    // from the resting sinus P — at tachycardia rates the P rides on the preceding T wave, and its measured shape
+    // changes with the overlap. 10 %: our choice.
     private static bool SinusEdges(ClassifierFacts f) =>
-        f.Onset.Type == "gradual" && f.Offset.Type == "gradual" && f.SShare < 0.5;
+        f.Onset.Type == "gradual" && f.Offset.Type == "gradual" && f.SShare < 0.5
+        && f.Onset.Ratio >= 1 - DriftFraction && f.Offset.Ratio <= 1 + DriftFraction;
 
     // AF keeps the rhythm stage's verdict on its length (af from the minimum AF duration, af-brief below).
     private static string Af(ClassifierFacts f, EpisodeSettings s) => f.RhythmAfLong ? EpisodeKinds.Af : EpisodeKinds.AfBrief;

@@ -106,12 +106,12 @@ public sealed class SinusOrAtrialTests
 }
 
 /// <summary>
-/// Flutter waves against a sinus P, on the classifier's facts directly (what the signal stage would measure, set by
-/// hand): a regular narrow rhythm at 110/min whose mean cycle repeats within itself (the locked-wave finding) is still
+/// The classifier on its facts directly (what the signal stage would measure, set by hand). Flutter waves against a
+/// sinus P: a regular narrow rhythm at 110/min whose mean cycle repeats within itself (the locked-wave finding) is still
 /// sinus when a P like the sinus P stands before most QRS — as in MITDB 215 at 1210 s (no flutter label; P before 86 %
 /// of QRS, 0.98 like the sinus P) — and flutter when no such P is there. The rule is the trade's: flutter has no P waves.
 /// </summary>
-public sealed class FlutterOrSinusPTests
+public sealed class ClassifierFactsTests
 {
     [Theory]
     [InlineData(0.86, 0.98, "sinus-tachycardia")]
@@ -119,11 +119,55 @@ public sealed class FlutterOrSinusPTests
     public void LockedAtrialWaves_WithASinusPBeforeMostQrs_AreNotFlutter(double pBefore, double pVsSinus, string expected)
     {
         var s = AnalysisSettings.Default.Episodes;
-        var facts = new ClassifierFacts
+        var facts = Facts(110, new OnsetMeasure("gradual", 0.95, "none", 0), new OffsetMeasure("gradual", 1.05, 0, "gradual", double.NaN), new AtrialFinding
+        {
+            Finding = "flutter-waves-locked",
+            PBeforeShare = pBefore,
+            PShapes = 1,
+            SinusPCorrelation = pVsSinus,
+            AtrialRateBpm = 220,
+            LockedWaveIndex = 0.85,
+        });
+
+        var (kind, _, _, evidence, _) = TachycardiaClassifier.Classify(facts, s);
+
+        Assert.Equal(expected, kind);
+        Assert.Equal(expected == "sinus-tachycardia", evidence.Contains("not flutter", StringComparison.Ordinal));
+    }
+
+    /// <summary>
+    /// A focal atrial tachycardia's warm-up against a sinus rate drifting across 100/min, both "gradual" by the onset
+    /// ratio, with a P before every QRS whose shape differs from the sinus P (-0.6): the RR before the episode within
+    /// 10 % of its first ones (0.97) and after it of its last ones (1.03) is a drift, sinus; a warm-up that shortens the
+    /// RR by 16 % (0.84) and a cool-down that lengthens it by 15 % is the focus's, atrial.
+    /// </summary>
+    [Theory]
+    [InlineData(0.97, 1.03, "sinus-tachycardia")]
+    [InlineData(0.84, 1.15, "atrial-tachycardia")]
+    public void PUnlikeSinus_GradualEdges_DriftIsSinus_WarmUpIsAtrial(double onsetRatio, double offsetRatio, string expected)
+    {
+        var facts = Facts(140, new OnsetMeasure("gradual", onsetRatio, "none", 2), new OffsetMeasure("gradual", offsetRatio, 2, "gradual", double.NaN), new AtrialFinding
+        {
+            Finding = "p-waves",
+            PBeforeShare = 0.95,
+            PShapes = 1,
+            SinusPCorrelation = -0.6,
+        });
+
+        var (kind, _, _, _, _) = TachycardiaClassifier.Classify(facts, AnalysisSettings.Default.Episodes);
+
+        Assert.Equal(expected, kind);
+    }
+
+    // A regular narrow run of normal-looking beats, 64 s, at the given rate, with the given edges and atrial finding.
+    private static ClassifierFacts Facts(double bpm, OnsetMeasure onset, OffsetMeasure offset, AtrialFinding atrial)
+    {
+        var rr = 60 / bpm;
+        return new ClassifierFacts
         {
             DurationS = 64,
-            MeanBpm = 110,
-            MedianBpm = 110,
+            MeanBpm = bpm,
+            MedianBpm = bpm,
             BeatQrsMs = 90,
             MeanComplexQrsMs = 90,
             VShare = 0,
@@ -133,27 +177,14 @@ public sealed class FlutterOrSinusPTests
             UsualQrsShare = 1,
             OddTemplateShare = 0,
             SplitShare = 0,
-            Regularity = new RrRegularity(117, 0.545, 0.04, 0.03),
-            NormalRegularity = new RrRegularity(117, 0.545, 0.04, 0.03),
-            Onset = new OnsetMeasure("gradual", 0.95, "none", 0),
-            Offset = new OffsetMeasure("gradual", 1.05, 0, "gradual", double.NaN),
-            Atrial = new AtrialFinding
-            {
-                Finding = "flutter-waves-locked",
-                PBeforeShare = pBefore,
-                PShapes = 1,
-                SinusPCorrelation = pVsSinus,
-                AtrialRateBpm = 220,
-                LockedWaveIndex = 0.85,
-            },
+            Regularity = new RrRegularity((int)(64 / rr), rr, 0.04, 0.03),
+            NormalRegularity = new RrRegularity((int)(64 / rr), rr, 0.04, 0.03),
+            Onset = onset,
+            Offset = offset,
+            Atrial = atrial,
             AfShare = 0,
             RhythmAfLong = false,
             Source = CandidateSource.Fast,
         };
-
-        var (kind, _, _, evidence, _) = TachycardiaClassifier.Classify(facts, s);
-
-        Assert.Equal(expected, kind);
-        Assert.Equal(expected == "sinus-tachycardia", evidence.Contains("not flutter", StringComparison.Ordinal));
     }
 }
