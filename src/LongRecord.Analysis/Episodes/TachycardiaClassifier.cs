@@ -341,18 +341,23 @@ internal static class TachycardiaClassifier
 
     // Enough normal-to-normal intervals to judge the rhythm under the premature beats, and that rhythm regular; the
     // premature beats supraventricular ones, and P waves before most QRS.
+    // The rhythm under them is sinus when its P is like the sinus P, or cannot be compared, or the rate merely drifts
+    // across 100/min (a regular atrial focus with premature beats of its own starts and stops abruptly).
     private static bool SinusUnderPremature(ClassifierFacts f, EpisodeSettings s) =>
         f.PrematureShare >= 0.1 && f.SShare < 0.5 && f.VShare < 0.1
         && f.NormalRegularity.Intervals >= MinNormalIntervals && f.NormalRegularity.SuccessiveChange <= s.IrregularRrChange
-        && f.Atrial.PBeforeShare >= s.MultifocalPShare;
+        && f.Atrial.PBeforeShare >= s.MultifocalPShare
+        && (!(f.Atrial.SinusPCorrelation < s.SinusPCorrelation) || DriftingEdges(f));
 
     // A sinus tachycardia rises and falls gradually: a rate that drifts across the tachycardia threshold (the RR on
     // either side within 10 % of the episode's edges — a focal atrial tachycardia's warm-up, a few beats that shorten
     // by a fifth or more, does not pass) and few beats labelled premature atrial outweigh a P wave whose shape differs
     // from the resting sinus P — at tachycardia rates the P rides on the preceding T wave, and its measured shape
     // changes with the overlap. 10 %: our choice.
-    private static bool SinusEdges(ClassifierFacts f) =>
-        f.Onset.Type == "gradual" && f.Offset.Type == "gradual" && f.SShare < 0.5
+    private static bool SinusEdges(ClassifierFacts f) => f.SShare < 0.5 && DriftingEdges(f);
+
+    private static bool DriftingEdges(ClassifierFacts f) =>
+        f.Onset.Type == "gradual" && f.Offset.Type == "gradual"
         && f.Onset.Ratio >= 1 - DriftFraction && f.Offset.Ratio <= 1 + DriftFraction;
 
     // AF keeps the rhythm stage's verdict on its length (af from the minimum AF duration, af-brief below).

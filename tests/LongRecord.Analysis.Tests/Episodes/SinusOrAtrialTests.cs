@@ -159,6 +159,34 @@ public sealed class ClassifierFactsTests
         Assert.Equal(expected, kind);
     }
 
+    /// <summary>
+    /// Premature atrial beats (a fifth of the beats) in a narrow rhythm at 107/min that is regular between them, with
+    /// a P before the QRS unlike the sinus P (-0.7): where the rate drifts across 100/min at both ends the rhythm under
+    /// them is sinus, sinus with PACs; where it starts at once (RR down by 30 %) and stops at once, a regular atrial
+    /// focus with premature beats of its own, not sinus.
+    /// </summary>
+    [Theory]
+    [InlineData(0.97, 1.03, "sinus-with-pacs")]
+    [InlineData(0.70, 1.35, "atrial-tachycardia")]
+    public void RegularBetweenPremature_PUnlikeSinus_SinusWithPacsOnlyWhereTheRateDrifts(double onsetRatio, double offsetRatio, string expected)
+    {
+        var abrupt = onsetRatio < 0.8;
+        var facts = Facts(107, new OnsetMeasure(abrupt ? "abrupt" : "gradual", onsetRatio, "none", 0),
+            new OffsetMeasure(abrupt ? "abrupt" : "gradual", offsetRatio, 0, abrupt ? "abrupt" : "gradual", double.NaN),
+            new AtrialFinding { Finding = "p-waves", PBeforeShare = 0.9, PShapes = 2, DominantPShare = 0.8, SinusPCorrelation = -0.7 }) with
+        {
+            SShare = 0.2,
+            NShare = 0.8,
+            PrematureShare = 0.2,
+            Regularity = new RrRegularity(110, 0.56, 0.15, 0.16),
+            NormalRegularity = new RrRegularity(70, 0.56, 0.03, 0.02),
+        };
+
+        var (kind, _, _, _, _) = TachycardiaClassifier.Classify(facts, AnalysisSettings.Default.Episodes);
+
+        Assert.Equal(expected, kind);
+    }
+
     // A regular narrow run of normal-looking beats, 64 s, at the given rate, with the given edges and atrial finding.
     private static ClassifierFacts Facts(double bpm, OnsetMeasure onset, OffsetMeasure offset, AtrialFinding atrial)
     {
