@@ -1,3 +1,5 @@
+using LongRecord.Analysis.Beats;
+
 namespace LongRecord.Analysis.Episodes;
 
 /// <summary>
@@ -16,7 +18,7 @@ internal readonly record struct RrRegularity(int Intervals, double MeanRrS, doub
     public static RrRegularity NormalToNormal(BeatTrack t, int first, int last) => Of(t, first, last, normalOnly: true);
 
     private static bool Counts(BeatTrack t, int i, bool normalOnly) =>
-        t.HasRr(i) && (!normalOnly || (t[i].Class == LongRecord.Analysis.Beats.BeatClass.N && t[i - 1].Class == LongRecord.Analysis.Beats.BeatClass.N));
+        t.HasRr(i) && (!normalOnly || (t[i].Class == BeatClass.N && t[i - 1].Class == BeatClass.N));
 
     private static RrRegularity Of(BeatTrack t, int first, int last, bool normalOnly)
     {

@@ -230,18 +230,9 @@ internal static class TachycardiaClassifier
 
                 if (!double.IsNaN(a.SinusPCorrelation))
                 {
-                    if (a.SinusPCorrelation >= s.SinusPCorrelation)
-                    {
-                        return (EpisodeKinds.SinusTachycardia, f.Onset.Type == "abrupt" ? 0.6 : 0.9);
-                    }
-
-                    if (SinusEdges(f))
-                    {
-                        e.Add("P unlike the sinus P, but a gradual start and end without premature atrial beats");
-                        return (EpisodeKinds.SinusTachycardia, 0.5);
-                    }
-
-                    return (EpisodeKinds.AtrialTachycardia, 0.8);
+                    return a.SinusPCorrelation >= s.SinusPCorrelation
+                        ? (EpisodeKinds.SinusTachycardia, f.Onset.Type == "abrupt" ? 0.6 : 0.9)
+                        : UnlikeSinusP(f, e, atrialConfidence: 0.8, sinusConfidence: 0.5);
                 }
 
                 // With no sinus P to compare, the edges decide: a sinus tachycardia rises and falls gradually, so an
@@ -306,13 +297,9 @@ internal static class TachycardiaClassifier
         // A P wave before every QRS decides by its shape: unlike the sinus P, the rhythm is atrial, not sinus.
         if (a.PBeforeShare >= s.PBeforeQrsShare)
         {
-            if (a.SinusPCorrelation < s.SinusPCorrelation && SinusEdges(f))
-            {
-                e.Add("P unlike the sinus P, but a gradual start and end without premature atrial beats");
-                return (EpisodeKinds.SinusTachycardia, 0.4);
-            }
-
-            return a.SinusPCorrelation < s.SinusPCorrelation ? (EpisodeKinds.AtrialTachycardia, 0.4) : (EpisodeKinds.SinusTachycardia, 0.4);
+            return a.SinusPCorrelation < s.SinusPCorrelation
+                ? UnlikeSinusP(f, e, atrialConfidence: 0.4, sinusConfidence: 0.4)
+                : (EpisodeKinds.SinusTachycardia, 0.4);
         }
 
         // A short narrow run that starts abruptly is a run of supraventricular ectopic beats even when the beats stage
@@ -340,9 +327,9 @@ internal static class TachycardiaClassifier
     }
 
     // Enough normal-to-normal intervals to judge the rhythm under the premature beats, and that rhythm regular; the
-    // premature beats supraventricular ones, and P waves before most QRS.
-    // The rhythm under them is sinus when its P is like the sinus P, or cannot be compared, or the rate merely drifts
-    // across 100/min (a regular atrial focus with premature beats of its own starts and stops abruptly).
+    // premature beats supraventricular ones, and P waves before most QRS. The rhythm under them is sinus when its P is
+    // like the sinus P, or cannot be compared, or the rate merely drifts across 100/min (a regular atrial focus with
+    // premature beats of its own starts and stops abruptly).
     private static bool SinusUnderPremature(ClassifierFacts f, EpisodeSettings s) =>
         f.PrematureShare >= 0.1 && f.SShare < 0.5 && f.VShare < 0.1
         && f.NormalRegularity.Intervals >= MinNormalIntervals && f.NormalRegularity.SuccessiveChange <= s.IrregularRrChange
@@ -355,6 +342,18 @@ internal static class TachycardiaClassifier
     // from the resting sinus P — at tachycardia rates the P rides on the preceding T wave, and its measured shape
     // changes with the overlap. 10 %: our choice.
     private static bool SinusEdges(ClassifierFacts f) => f.SShare < 0.5 && DriftingEdges(f);
+
+    // A P before the QRS unlike the sinus P: an atrial focus, unless the episode has a sinus tachycardia's edges.
+    private static (string, double) UnlikeSinusP(ClassifierFacts f, List<string> e, double atrialConfidence, double sinusConfidence)
+    {
+        if (!SinusEdges(f))
+        {
+            return (EpisodeKinds.AtrialTachycardia, atrialConfidence);
+        }
+
+        e.Add("P unlike the sinus P, but the rate drifts across 100/min at both ends without premature atrial beats");
+        return (EpisodeKinds.SinusTachycardia, sinusConfidence);
+    }
 
     private static bool DriftingEdges(ClassifierFacts f) =>
         f.Onset.Type == "gradual" && f.Offset.Type == "gradual"

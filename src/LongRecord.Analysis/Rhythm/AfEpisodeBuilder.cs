@@ -4,7 +4,8 @@ namespace LongRecord.Analysis.Rhythm;
 
 /// <summary>
 /// Turns the detector's AF-like intervals into episodes: bridges short interruptions (judged non-AF, unjudged, or
-/// unanalysable with AF on both sides), splits at longer unanalysable time, and keeps stretches of at least the minimum duration as AF (the rest as af-brief). Sets the Af and AfBrief flags.
+/// unanalysable with AF on both sides), splits at longer unanalysable time, and keeps stretches of at least the
+/// minimum duration as AF (the rest as af-brief). Sets the Af and AfBrief flags on the analysable intervals.
 /// </summary>
 internal static class AfEpisodeBuilder
 {
@@ -40,9 +41,9 @@ internal static class AfEpisodeBuilder
                 var unanalysableS = 0.0;
                 // After unreadable time the detector's window refills before it judges again: that unjudged time is
                 // part of the interruption, so the unjudged allowance grows by the unanalysable one.
-                double UnjudgedAllowance() => unanalysableS > 0 ? s.BridgeUnjudgedS + s.BridgeUnanalysableS : s.BridgeUnjudgedS;
-                while (k < n && !(rr.IsAnalysable(k) && rr.Has(k, IntervalFlags.AfLike))
-                    && gapS < s.BridgeS && unjudgedS < UnjudgedAllowance() && unanalysableS < s.BridgeUnanalysableS)
+                bool WithinAllowances() => gapS < s.BridgeS && unanalysableS < s.BridgeUnanalysableS
+                    && unjudgedS < (unanalysableS > 0 ? s.BridgeUnjudgedS + s.BridgeUnanalysableS : s.BridgeUnjudgedS);
+                while (k < n && !(rr.IsAnalysable(k) && rr.Has(k, IntervalFlags.AfLike)) && WithinAllowances())
                 {
                     if (!rr.IsAnalysable(k))
                     {
@@ -60,8 +61,7 @@ internal static class AfEpisodeBuilder
                     k++;
                 }
 
-                if (k < n && k > j && gapS < s.BridgeS && unjudgedS < UnjudgedAllowance() && unanalysableS < s.BridgeUnanalysableS
-                    && rr.IsAnalysable(k) && rr.Has(k, IntervalFlags.AfLike))
+                if (k < n && k > j && WithinAllowances() && rr.IsAnalysable(k) && rr.Has(k, IntervalFlags.AfLike))
                 {
                     j = k;
                     continue;
