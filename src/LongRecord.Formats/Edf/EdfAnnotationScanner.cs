@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using LongRecord.Formats.IO;
 
 namespace LongRecord.Formats.Edf;
@@ -20,6 +21,8 @@ internal static class EdfAnnotationScanner
     // Bytes read per call while scanning (common practice, no source: large enough to amortise a system call).
     private const int ChunkBytes = 1 << 20;
 
+    // One long loop over every data record: optimised from the start rather than waiting on the start-up tier.
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static EdfAnnotationScan Scan(ReadOnlyRecordingFile file, EdfHeader h, int records)
     {
         var annotations = h.Signals.Where(s => s.IsAnnotation).ToArray();
