@@ -124,6 +124,13 @@ internal sealed class BeatFinisher
             }
 
             beat.Template = c.Template;
+            if (c.TemplateQrs is var (on, off, ms))
+            {
+                beat.QrsOnOffset = (short)on;
+                beat.QrsOffOffset = (short)off;
+                beat.QrsMs = ms;
+            }
+
             decided(beat);
         }
     }

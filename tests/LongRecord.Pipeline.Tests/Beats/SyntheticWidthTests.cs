@@ -22,12 +22,41 @@ public sealed class SyntheticWidthTests(ITestOutputHelper output)
     [Fact]
     public void Catalogue_WidthMedianErrorAtMost8ms_NarrowBroadAgreementAtLeast98()
     {
+        var (median, agreement, line) = Measure(null);
+        FiguresReport.Add("9a delineation synthetic widths", line);
+        Assert.True(median <= 8, line);
+        Assert.True(agreement >= 98, line);
+    }
+
+    /// <summary>
+    /// The same catalogue in 12 dB muscle noise over the whole recording (the noise stress test's SNR definition, as
+    /// the synthesiser calibrates it). Our own floor, not the issue's (which names no noise): median |error| ≤ 10 ms
+    /// and narrow/broad agreement ≥ 95 %, so that noise neither widens normal beats into broad ones nor narrows
+    /// ventricular ones. Before noisy beats took their template's boundaries this measured a median |error| of 19.3 ms
+    /// and 70.1 % agreement (40 % of the normal beats of sinus rhythm measured 120 ms or more).
+    /// </summary>
+    [Fact]
+    public void Catalogue_In12dBMuscleNoise_WidthMedianErrorAtMost10ms_NarrowBroadAgreementAtLeast95()
+    {
+        var (median, agreement, line) = Measure(12);
+        FiguresReport.Add("9b delineation synthetic widths in noise", line);
+        Assert.True(median <= 10, line);
+        Assert.True(agreement >= 95, line);
+    }
+
+    private (double Median, double Agreement, string Line) Measure(double? snrDb)
+    {
         var errors = new List<double>();
         long agree = 0, total = 0;
         using var folder = new TempFolder("widths");
         foreach (var name in s_scenarios)
         {
             var scenario = ScenarioLoader.Load(Scenarios.Path(name));
+            if (snrDb is double snr)
+            {
+                scenario = scenario with { Noise = [.. scenario.Noise, new NoiseStretch { Kind = NoiseKind.Muscle, StartS = 0, DurationS = scenario.TimelineDurationS, SnrDb = snr }] };
+            }
+
             var rec = SyntheticRecording.Create(scenario);
             var paths = SyntheticRecordingExport.Write(rec, folder.Path(name + ".edf"));
             using var reader = RecordingOpener.Open(paths.Edf);
@@ -59,11 +88,10 @@ public sealed class SyntheticWidthTests(ITestOutputHelper output)
         }
 
         var median = errors.Order().ElementAt(errors.Count / 2);
+        var agreement = 100.0 * agree / total;
         var line = string.Create(CultureInfo.InvariantCulture,
-            $"Synthetic QRS width ({total} truth beats, {s_scenarios.Length} scenarios at 250 Hz): median |error| {median:F1} ms, narrow/broad agreement {100.0 * agree / total:F1} %");
+            $"Synthetic QRS width ({total} truth beats, {s_scenarios.Length} scenarios at 250 Hz{(snrDb is double d ? $", muscle noise {d} dB" : "")}): median |error| {median:F1} ms, narrow/broad agreement {agreement:F1} %");
         output.WriteLine(line);
-        FiguresReport.Add("9a delineation synthetic widths", line);
-        Assert.True(median <= 8, line);
-        Assert.True(100.0 * agree / total >= 98, line);
+        return (median, agreement, line);
     }
 }

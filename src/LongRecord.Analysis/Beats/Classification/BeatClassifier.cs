@@ -17,6 +17,7 @@ public sealed class BeatClassifier
     private readonly Queue<ClassifiedBeat> _decided = new();
     private readonly BeatDecision _decision;
     private readonly NoiseFloor _noise;
+    private readonly TemplateQrs _templateQrs;
 
     private float[] _previousAtrial;
     private bool _previousAtrialValid;
@@ -38,6 +39,7 @@ public sealed class BeatClassifier
         _shape = _extractor.NewShape();
         _decision = new BeatDecision(_settings, _rhythm);
         _noise = new NoiseFloor(_settings);
+        _templateQrs = new TemplateQrs(samplingRateHz, leads, _extractor.Segment, (int)Math.Round(0.15 * samplingRateHz));
         _previousAtrial = new float[_shape.Atrial.Length];
     }
 
@@ -75,6 +77,14 @@ public sealed class BeatClassifier
             beat.NewShape = match.Created;
             beat.WidthMs = width;
             beat.Noise = _shape.NoiseRatio;
+            if (_shape.NoiseRatio > _settings.NoisyWidthRatio
+                && _templateQrs.TryGet(match.Template, _extractor.Before, _settings.NoisyWidthTemplateBeats, out var on, out var off, out var templateMs))
+            {
+                // A noisy window: the boundaries of the beat's template, placed where the template matched it.
+                var segmentStart = _shape.CentreIndex - _extractor.Before + match.Shift;
+                beat.TemplateQrs = (segmentStart + on - fiducialIndex, segmentStart + off - fiducialIndex, templateMs);
+            }
+
             var t = match.Template;
             beat.TemplatePrematureShare = t.Weight > 0 ? t.PrematureWeight / t.Weight : 0;
             beat.TemplateVentricularShare = t.Weight > 0 ? t.VentricularWeight / t.Weight : 0;
@@ -95,6 +105,15 @@ public sealed class BeatClassifier
             _shape.Atrial.CopyTo(_previousAtrial, 0);
             _previousAtrialValid = true;
             var normalWidth = float.IsNaN(measurements.QrsWidthMs) || double.IsNaN(normal.WidthMs) ? normal.SpreadMs : normal.WidthMs;
+            if (beat.TemplateQrs is var (_, _, ms) && _templateQrs.TryGet(normal, _extractor.Before, _settings.NoisyWidthTemplateBeats, out _, out _, out var normalMs))
+            {
+                // Both widths from template means: the noisy beat's width is judged against the normal template's, not
+                // against the normal beats' own widths, which the same noise widens.
+                beat.WidthMs = ms;
+                width = ms;
+                normalWidth = normalMs;
+            }
+
             beat.ExtraWidthMs = width - normalWidth;
             beat.NormalWidthMs = normalWidth;
 
@@ -148,7 +167,10 @@ public sealed class BeatClassifier
             _templates.MarkVentricular(beat.Template);
         }
 
-        _decided.Enqueue(new ClassifiedBeat(beat.Sample, cls, beat.Valid ? beat.Template : (short)-1, flags, beat.Valid ? beat.WidthMs : float.NaN));
+        _decided.Enqueue(new ClassifiedBeat(beat.Sample, cls, beat.Valid ? beat.Template : (short)-1, flags, beat.Valid ? beat.WidthMs : float.NaN)
+        {
+            TemplateQrs = beat.TemplateQrs,
+        });
     }
 
     private static double Correlation(ReadOnlySpan<float> x, ReadOnlySpan<float> y)
@@ -186,5 +208,6 @@ public sealed class BeatClassifier
         public double AtrialCorrelation;
         public double AtrialToPrevious;
         public bool NewShape;
+        public (int OnOffset, int OffOffset, float Ms)? TemplateQrs;
     }
 }

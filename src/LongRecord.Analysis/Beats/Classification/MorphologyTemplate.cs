@@ -52,6 +52,16 @@ internal sealed class MorphologyTemplate
 
     public bool InUse { get; set; }
 
+    /// <summary>The template's beat count when its mean complex was last delimited (<see cref="TemplateQrs"/>); 0 never.</summary>
+    public long QrsMeasuredAt { get; set; }
+
+    /// <summary>QRS onset and offset of the mean complex, indices into the segment (−1 when not found), and its width in ms.</summary>
+    public int QrsOnset { get; set; } = -1;
+
+    public int QrsOffset { get; set; } = -1;
+
+    public float QrsMs { get; set; } = float.NaN;
+
     public void Decay(double factor)
     {
         Weight *= factor;

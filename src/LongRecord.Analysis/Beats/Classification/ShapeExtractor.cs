@@ -35,6 +35,9 @@ internal sealed class ShapeExtractor
 
     public int Segment { get; }
 
+    /// <summary>Samples of the segment before its centre (the aligned QRS centre sits at this index).</summary>
+    public int Before => _before;
+
     public int Margin { get; }
 
     public int AtrialLength { get; }

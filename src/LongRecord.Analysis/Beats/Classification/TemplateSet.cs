@@ -249,6 +249,9 @@ internal sealed class TemplateSet
         s.WidthMs = double.NaN;
         s.WidthLowerQuartileMs = double.NaN;
         s.WidthCount = 0;
+        s.QrsMeasuredAt = 0;
+        s.QrsOnset = s.QrsOffset = -1;
+        s.QrsMs = float.NaN;
         Array.Clear(s.Mean);
         Array.Clear(s.Atrial);
         s.AtrialCount = 0;
