@@ -224,6 +224,8 @@ internal static class CandidateFinder
 
     // Beat j is V, beat j + 1 unclassifiable (Q) and beat j + 2 V of beat j's template, all three broad: the Q beat sits
     // inside a ventricular run (MITDB 223 at 1442 s: V, Q, V on one ventricular template, 144, 137 and 154 ms).
+    private const double CompensatoryRatio = 1.8;
+
     private static bool QBetweenLikeV(BeatTrack track, int j, EpisodeSettings s)
     {
         if (j + 2 >= track.Count || track[j + 1].Class != BeatClass.Q || track[j + 2].Class != BeatClass.V || !track.HasRr(j + 2))
@@ -233,8 +235,17 @@ internal static class CandidateFinder
 
         // All three broad: in bigeminy a normal beat read Q is narrow, and so are narrow beats misread V.
         var broad = s.BroadQrsMs;
-        return track[j].Template >= 0 && track[j + 2].Template == track[j].Template
-            && track[j].QrsMs >= broad && track[j + 1].QrsMs >= broad && track[j + 2].QrsMs >= broad;
+        if (!(track[j].Template >= 0 && track[j + 2].Template == track[j].Template
+            && track[j].QrsMs >= broad && track[j + 1].QrsMs >= broad && track[j + 2].QrsMs >= broad))
+        {
+            return false;
+        }
+
+        // A Q after a pause of at least 1.8 times the first V's coupling interval sits where the V's compensatory
+        // pause puts the next sinus beat: ventricular bigeminy, a normal beat whose width noise has widened (the
+        // synthesiser's bigeminy in 12 dB muscle noise), not a beat of a run. 1.8: our choice (MITDB 223's run at
+        // 1442 s: 808 ms after a coupling of 525 ms).
+        return !(track.HasRr(j) && track.RrS[j + 1] >= CompensatoryRatio * track.RrS[j]);
     }
 
     private static void ClassRuns(BeatTrack track, EpisodeSettings s, List<Candidate> list, out int sveCouplets, out int veCouplets)
