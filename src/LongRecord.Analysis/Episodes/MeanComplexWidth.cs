@@ -69,8 +69,16 @@ internal static class MeanComplexWidth
             peakAt = slope[j] > slope[peakAt] ? j : peakAt;
         }
 
-        var threshold = Math.Max(SlopeFraction * slope[peakAt], RoughnessMultiple * Roughness(mean, w.Leads, length, count));
-        if (!(threshold > 0) || threshold >= slope[peakAt])
+        // A mean so rough that its noise floor reaches a third of the QRS's steepest slope cannot be delimited (6 dB
+        // muscle noise over a dozen beats gave widths of 0–8 ms): no width rather than a wrong one.
+        var floor = RoughnessMultiple * Roughness(mean, w.Leads, length, count);
+        if (floor > slope[peakAt] / 3)
+        {
+            return double.NaN;
+        }
+
+        var threshold = Math.Max(SlopeFraction * slope[peakAt], floor);
+        if (!(threshold > 0))
         {
             return double.NaN;
         }
