@@ -138,7 +138,7 @@ internal sealed class PWaveSearch
                 return;
             }
 
-            result.Correlation = Correlation(lead, y, begin, qrsOnset, at, count);
+            result.Correlation = Correlation(lead, y, begin, qrsOnset, at, count, g.Correlation);
             if (result.Correlation < g.Correlation)
             {
                 return;
@@ -221,7 +221,7 @@ internal sealed class PWaveSearch
 
     // Median over the stored beats of the best correlation (over a small lag) between the candidate's stretch and the
     // same stretch, relative to the QRS onset, of the stored beat.
-    private float Correlation(int lead, ReadOnlySpan<float> y, int begin, int qrsOnset, int at, int count)
+    private float Correlation(int lead, ReadOnlySpan<float> y, int begin, int qrsOnset, int at, int count, float gate)
     {
         var windowStart = qrsOnset - _p.TemplateLength;
 
@@ -248,6 +248,7 @@ internal sealed class PWaveSearch
         var varY = syy - sy * sy / m;
         var offsets = _lagOffsets.AsSpan();
         var used = 0;
+        var passed = 0;
         for (var j = 0; j < count; j++)
         {
             var stored = _history[lead].AsSpan(j * _p.TemplateLength, _p.TemplateLength);
@@ -325,6 +326,23 @@ internal sealed class PWaveSearch
             if (!float.IsNaN(bestR))
             {
                 _correlations[used++] = bestR;
+                passed += bestR >= gate ? 1 : 0;
+            }
+
+            // The test is the median (element used ÷ 2 in ascending order) against the gate: it passes when at least
+            // ⌈used ÷ 2⌉ correlations reach the gate. Once the beats left cannot change that either way, the answer is
+            // known, and the median itself is not needed (only the test's outcome is used): the gate is returned for
+            // a pass, and the median so far for a fail.
+            var left = count - j - 1;
+            var most = used + left;
+            if (passed >= most - most / 2)
+            {
+                return gate;
+            }
+
+            if (passed + left < most - most / 2 && passed < used - used / 2)
+            {
+                return Selection.Median(_correlations.AsSpan(0, used));
             }
         }
 
@@ -372,7 +390,11 @@ internal struct LeadP
     public float Activity;
     public float RestLargest;
 
-    /// <summary>Median correlation of the candidate's stretch with the same stretch of the recent beats (NaN: no history).</summary>
+    /// <summary>
+    /// Median correlation of the candidate's stretch with the same stretch of the recent beats (NaN: no history); when the
+    /// stored beats decided the test against the gate before all were compared, the gate itself (a pass) or the median so
+    /// far (a fail).
+    /// </summary>
     public float Correlation;
 
     /// <summary>Share of the recent beats whose candidate lay at the same distance before the QRS (NaN: no history).</summary>
