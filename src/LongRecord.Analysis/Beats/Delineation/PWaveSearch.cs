@@ -194,22 +194,27 @@ internal sealed class PWaveSearch
             }
         }
 
-        // The rest of the window, outside the wave and a margin: its RMS and its largest deflection.
+        // The rest of the window, outside the wave and a margin: its RMS and its largest deflection (the stretch before
+        // the wave, then the one after it, each in order).
         double sum = 0;
-        var n = 0;
         var largest = 0f;
-        for (var i = begin; i < end; i++)
+        var waveFrom = Math.Max(begin, lo - _p.Margin);
+        var waveTo = Math.Min(end, hi + _p.Margin + 1);
+        for (var i = begin; i < waveFrom; i++)
         {
-            if (i >= lo - _p.Margin && i <= hi + _p.Margin)
-            {
-                continue;
-            }
-
             var v = r[i];
             sum += v * v;
             largest = Math.Max(largest, Math.Abs(v));
-            n++;
         }
+
+        for (var i = Math.Max(waveTo, begin); i < end; i++)
+        {
+            var v = r[i];
+            sum += v * v;
+            largest = Math.Max(largest, Math.Abs(v));
+        }
+
+        var n = Math.Max(0, waveFrom - begin) + Math.Max(0, end - Math.Max(waveTo, begin));
 
         result.Peak = at;
         result.Amplitude = amplitude;
@@ -355,11 +360,10 @@ internal sealed class PWaveSearch
         var stored = _history[lead].AsSpan(slot * _p.TemplateLength, _p.TemplateLength);
         var windowStart = qrsOnset - _p.TemplateLength;
         var validFrom = Math.Max(0, begin - windowStart);
-        for (var i = 0; i < stored.Length; i++)
-        {
-            var src = windowStart + i;
-            stored[i] = i >= validFrom && src >= 0 ? r[src] : 0f;
-        }
+        // Zero before the first valid sample (and before the signal's start), the residual from there on.
+        var from = Math.Min(stored.Length, Math.Max(validFrom, -windowStart));
+        stored[..from].Clear();
+        r.Slice(windowStart + from, stored.Length - from).CopyTo(stored[from..]);
 
         _historyStart[lead][slot] = validFrom;
         _historyPr[lead][slot] = at >= 0 ? qrsOnset - at : -1;
