@@ -52,6 +52,9 @@ internal sealed class MorphologyTemplate
 
     public bool InUse { get; set; }
 
+    /// <summary>Changes whenever the mean does (a number never given twice in one template set).</summary>
+    public long Version { get; set; }
+
     /// <summary>The template's beat count when its mean complex was last delimited (<see cref="TemplateQrs"/>); 0 never.</summary>
     public long QrsMeasuredAt { get; set; }
 

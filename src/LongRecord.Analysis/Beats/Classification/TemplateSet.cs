@@ -14,6 +14,12 @@ internal sealed class TemplateSet
     private readonly int _segment;
     private readonly ClassificationSettings _settings;
     private readonly MorphologyTemplate[] _templates;
+
+    // The two templates' versions when a pair of slots was last compared for merging: an unchanged pair compares the
+    // same, and was not merged then.
+    private readonly long[,] _comparedA;
+    private readonly long[,] _comparedB;
+    private long _versions;
     private readonly double _decay;
     private short _nextId;
     private long _beats;
@@ -28,6 +34,9 @@ internal sealed class TemplateSet
         {
             _templates[i] = new MorphologyTemplate(leads, segment, atrial);
         }
+
+        _comparedA = new long[_templates.Length, _templates.Length];
+        _comparedB = new long[_templates.Length, _templates.Length];
 
         // Weights halve over this many beats: old clusters fade so the set follows a recording that changes.
         _decay = Math.Pow(0.5, 1.0 / settings.TemplateHalfLifeBeats);
@@ -253,6 +262,7 @@ internal sealed class TemplateSet
         s.QrsOnset = s.QrsOffset = -1;
         s.QrsMs = float.NaN;
         Array.Clear(s.Mean);
+        s.Version = ++_versions;
         Array.Clear(s.Atrial);
         s.AtrialCount = 0;
         return s;
@@ -289,6 +299,7 @@ internal sealed class TemplateSet
         }
 
         t.RecomputeEnergy(_leads, _segment);
+        t.Version = ++_versions;
         if (onTime)
         {
             t.AtrialCount++;
@@ -344,6 +355,13 @@ internal sealed class TemplateSet
                     continue;
                 }
 
+                if (_comparedA[i, j] == a.Version && _comparedB[i, j] == b.Version)
+                {
+                    continue;
+                }
+
+                _comparedA[i, j] = a.Version;
+                _comparedB[i, j] = b.Version;
                 var (c, amp) = Compare(a, b, 1);
                 if (c >= _settings.MergeCorrelation && amp >= 1 / 1.25 && amp <= 1.25)
                 {
@@ -355,6 +373,7 @@ internal sealed class TemplateSet
                     }
 
                     keep.RecomputeEnergy(_leads, _segment);
+                    keep.Version = ++_versions;
                     keep.Count += drop.Count;
                     keep.Weight += drop.Weight;
                     keep.OnTimeWeight += drop.OnTimeWeight;
