@@ -39,6 +39,8 @@ public sealed class BeatClassifier
         _shape = _extractor.NewShape();
         _decision = new BeatDecision(_settings, _rhythm);
         _noise = new NoiseFloor(_settings);
+        // 150 ms on either side of the template's segment: room for the delineator's low-pass to settle and for its
+        // noise estimate, which leaves out 120 ms around the QRS centre (our choice).
         _templateQrs = new TemplateQrs(samplingRateHz, leads, _extractor.Segment, (int)Math.Round(0.15 * samplingRateHz));
         _previousAtrial = new float[_shape.Atrial.Length];
     }
