@@ -222,10 +222,11 @@ internal static class CandidateFinder
         return sum / (to - from) < 60.0 / s.TachycardiaRateBpm;
     }
 
-    // Beat j is V, beat j + 1 unclassifiable (Q) and beat j + 2 V of beat j's template, all three broad: the Q beat sits
-    // inside a ventricular run (MITDB 223 at 1442 s: V, Q, V on one ventricular template, 144, 137 and 154 ms).
+    // A pause after a V this many times its coupling interval is its compensatory pause (see QBetweenLikeV).
     private const double CompensatoryRatio = 1.8;
 
+    // Beat j is V, beat j + 1 unclassifiable (Q) and beat j + 2 V of beat j's template, all three broad: the Q beat sits
+    // inside a ventricular run (MITDB 223 at 1442 s: V, Q, V on one ventricular template, 144, 137 and 154 ms).
     private static bool QBetweenLikeV(BeatTrack track, int j, EpisodeSettings s)
     {
         if (j + 2 >= track.Count || track[j + 1].Class != BeatClass.Q || track[j + 2].Class != BeatClass.V || !track.HasRr(j + 2))

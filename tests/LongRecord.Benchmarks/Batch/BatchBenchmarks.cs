@@ -73,7 +73,7 @@ public static class BatchBenchmarks
             Line($"  the same folder again, every recording unchanged (fingerprints only): {clock.Elapsed.TotalSeconds:F1} s");
         }
 
-        Line($"machine: {Environment.ProcessorCount} cores, load average {File.ReadAllText("/proc/loadavg").Split(' ')[0]} when finished");
+        MachineLine();
     }
 
     /// <summary>
@@ -97,8 +97,11 @@ public static class BatchBenchmarks
             Line($"beats stage alone, 72 h 3-lead 256 Hz, one thread, pass {pass}{(pass == 1 ? " (fresh process: start-up compilation included)" : "")}: {wallS:F2} s wall = {samples / wallS / 1e6:F1} M samples/s ({cpuS:F2} s of process CPU; {analyser.Beats.Count} beats; {analyser.Timings})");
         }
 
-        Line($"machine: {Environment.ProcessorCount} cores, load average {File.ReadAllText("/proc/loadavg").Split(' ')[0]} when finished");
+        MachineLine();
     }
+
+    private static void MachineLine() =>
+        Line($"machine: {Environment.ProcessorCount} cores, load average {File.ReadAllText("/proc/loadavg").Split(' ')[0]} when finished");
 
     private static double Time(Action work)
     {

@@ -345,7 +345,7 @@ internal sealed class PWaveSearch
                 return gate;
             }
 
-            if (passed + left < most - most / 2 && passed < used - used / 2)
+            if (passed + left < most - most / 2)
             {
                 return Selection.Median(_correlations.AsSpan(0, used));
             }
