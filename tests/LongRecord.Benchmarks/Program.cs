@@ -11,7 +11,7 @@ namespace LongRecord.Benchmarks;
 /// <c>-- --memory</c> reads a 72 h recording and prints the peak working set;
 /// <c>-- --ltafdb</c> re-analyses every LTAFDB record present from its .qrs beats and prints the time;
 /// <c>-- --batch</c> prints the batch issue's figures (<c>--single</c>: the 72 h recording only; <c>--one-thread</c>: its beats stage on one thread);
-/// <c>-- --beats-72h</c> times the beats stage alone on the 72 h recording, one thread, first and second pass;
+/// <c>-- --beats-72h</c> times the beats stage alone on the 72 h recording, one thread: a first pass with start-up compilation, then three (their median is the figure);
 /// <c>-- --episodes</c> times beats, rhythm and episodes of the 24 h demo day.
 /// </summary>
 public static class Program
