@@ -1,3 +1,5 @@
+using LongRecord.Analysis.Numerics;
+
 namespace LongRecord.Analysis.Beats;
 
 /// <summary>
@@ -11,7 +13,7 @@ internal static class SmallSort
 
     public static void Sort(Span<double> values)
     {
-        if (values.Length > Limit || values.ContainsAnyExceptInRange(double.NegativeInfinity, double.PositiveInfinity))
+        if (values.Length > Limit || SpanStatistics.HasNaN(values))
         {
             values.Sort();
             return;

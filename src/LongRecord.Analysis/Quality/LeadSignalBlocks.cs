@@ -1,6 +1,7 @@
 using System.Numerics;
 using System.Runtime.InteropServices;
 using System.Runtime.Intrinsics;
+using LongRecord.Analysis.Numerics;
 
 namespace LongRecord.Analysis.Quality;
 

@@ -1,3 +1,5 @@
+using LongRecord.Analysis.Numerics;
+
 namespace LongRecord.Analysis.Beats.Classification;
 
 /// <summary>
@@ -73,7 +75,7 @@ internal sealed class ShapeExtractor
         for (var k = 0; k < _leads; k++)
         {
             var src = window.Slice(k * length + start, shape.Span);
-            if (src.ContainsAnyExceptInRange(float.NegativeInfinity, float.PositiveInfinity))
+            if (SpanStatistics.HasNaN(src))
             {
                 return false; // a gap (NaN)
             }
@@ -84,7 +86,7 @@ internal sealed class ShapeExtractor
         for (var k = 0; k < _leads; k++)
         {
             var src = window.Slice(k * length + atrialStart, AtrialLength);
-            if (src.ContainsAnyExceptInRange(float.NegativeInfinity, float.PositiveInfinity))
+            if (SpanStatistics.HasNaN(src))
             {
                 return false;
             }

@@ -1,4 +1,6 @@
 using System.Numerics;
+using System.Runtime.CompilerServices;
+using System.Runtime.InteropServices;
 
 namespace LongRecord.Analysis.Beats.Delineation;
 
@@ -92,16 +94,26 @@ public sealed partial class BeatDelineator
             int p0 = starts[s], p1 = starts[s + 1], p2 = starts[s + 2], p3 = starts[s + 3];
             float sum0 = 0f, sum1 = 0f, sum2 = 0f, sum3 = 0f;
             float high0 = 0f, high1 = 0f, high2 = 0f, high3 = 0f;
-            for (var i = 0; i < segment; i++)
+            // The slices check the segments' bounds once; the loop then reads without a check per sample.
+            ref var d0 = ref MemoryMarshal.GetReference(d.Slice(p0, segment));
+            ref var d1 = ref MemoryMarshal.GetReference(d.Slice(p1, segment));
+            ref var d2 = ref MemoryMarshal.GetReference(d.Slice(p2, segment));
+            ref var d3 = ref MemoryMarshal.GetReference(d.Slice(p3, segment));
+            ref var w0 = ref MemoryMarshal.GetReference(slow.Slice(p0, segment));
+            ref var w1 = ref MemoryMarshal.GetReference(slow.Slice(p1, segment));
+            ref var w2 = ref MemoryMarshal.GetReference(slow.Slice(p2, segment));
+            ref var w3 = ref MemoryMarshal.GetReference(slow.Slice(p3, segment));
+            for (nint i = 0; i < segment; i++)
             {
-                sum0 += Math.Abs(d[p0 + i]);
-                high0 += Math.Abs(d[p0 + i] - slow[p0 + i]);
-                sum1 += Math.Abs(d[p1 + i]);
-                high1 += Math.Abs(d[p1 + i] - slow[p1 + i]);
-                sum2 += Math.Abs(d[p2 + i]);
-                high2 += Math.Abs(d[p2 + i] - slow[p2 + i]);
-                sum3 += Math.Abs(d[p3 + i]);
-                high3 += Math.Abs(d[p3 + i] - slow[p3 + i]);
+                float x0 = Unsafe.Add(ref d0, i), x1 = Unsafe.Add(ref d1, i), x2 = Unsafe.Add(ref d2, i), x3 = Unsafe.Add(ref d3, i);
+                sum0 += Math.Abs(x0);
+                high0 += Math.Abs(x0 - Unsafe.Add(ref w0, i));
+                sum1 += Math.Abs(x1);
+                high1 += Math.Abs(x1 - Unsafe.Add(ref w1, i));
+                sum2 += Math.Abs(x2);
+                high2 += Math.Abs(x2 - Unsafe.Add(ref w2, i));
+                sum3 += Math.Abs(x3);
+                high3 += Math.Abs(x3 - Unsafe.Add(ref w3, i));
             }
 
             activity[s] = sum0 / segment;

@@ -1,3 +1,5 @@
+using LongRecord.Analysis.Numerics;
+
 namespace LongRecord.Analysis.Beats.Delineation;
 
 /// <summary>
@@ -182,7 +184,7 @@ public sealed partial class BeatDelineator
             lead.OnsetAt = lead.OffsetAt = -1;
             var raw = window.Slice(k * length, length);
             lead.Usable = k >= 64 || (mask & (1UL << k)) != 0;
-            if (lead.Usable && raw.IndexOfAnyExceptInRange(float.NegativeInfinity, float.PositiveInfinity) >= 0)
+            if (lead.Usable && SpanStatistics.HasNaN(raw))
             {
                 lead.Usable = false; // a gap (NaN) inside the window
             }

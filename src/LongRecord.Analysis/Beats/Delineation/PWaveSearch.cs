@@ -70,10 +70,7 @@ internal sealed class PWaveSearch
         }
 
         var r = _residual.AsSpan(0, y.Length);
-        for (var i = begin; i < qrsOnset; i++)
-        {
-            r[i] = y[i] - baseline.At(i);
-        }
+        SubtractLine(y[begin..qrsOnset], r[begin..qrsOnset], baseline, begin);
 
         // The candidate: the largest local extremum that is a whole wave inside the window (it falls to half its
         // height on both sides), so the tail of the previous T wave at the window's start is not taken for a P wave.
@@ -368,6 +365,30 @@ internal sealed class PWaveSearch
         _historyStart[lead][slot] = validFrom;
         _historyPr[lead][slot] = at >= 0 ? qrsOnset - at : -1;
         _historyCount[lead]++;
+    }
+
+    // r[i] = y[i] − line.At(first + i), eight samples at a time: each lane does the scalar operations in the scalar
+    // order (the index converted to float, times the slope, plus the level, subtracted), so the values are the same.
+    private static void SubtractLine(ReadOnlySpan<float> y, Span<float> r, Line line, int first)
+    {
+        var i = 0;
+        if (Vector256.IsHardwareAccelerated)
+        {
+            var level = Vector256.Create(line.Level);
+            var slope = Vector256.Create(line.Slope);
+            var index = Vector256.Create(first - line.Origin) + Vector256<int>.Indices;
+            for (; i + 8 <= y.Length; i += 8)
+            {
+                var at = level + slope * Vector256.ConvertToSingle(index);
+                (Vector256.Create(y.Slice(i, 8)) - at).CopyTo(r.Slice(i, 8));
+                index += Vector256.Create(8);
+            }
+        }
+
+        for (; i < y.Length; i++)
+        {
+            r[i] = y[i] - line.At(first + i);
+        }
     }
 
     private static float MedianOf(ReadOnlySpan<float> values, Span<float> scratch)

@@ -1,3 +1,5 @@
+using LongRecord.Analysis.Numerics;
+
 namespace LongRecord.Analysis.Beats.Delineation;
 
 /// <summary>
@@ -31,17 +33,12 @@ internal static class QrsBoundarySearch
         var peak = 0f;
         var min = float.MaxValue;
         var max = float.MinValue;
-        for (var i = from; i <= to; i++)
+        if (from <= to)
         {
-            var a = Math.Abs(slope[i]);
-            if (a > peak)
-            {
-                peak = a;
-                peakAt = i;
-            }
-
-            min = Math.Min(min, x[i]);
-            max = Math.Max(max, x[i]);
+            // The steepest slope (the first on ties) and the extremes of the stretch; no sample is NaN here.
+            (peak, var at) = SpanStatistics.AbsolutePeak(slope[from..(to + 1)]);
+            peakAt = at < 0 ? -1 : from + at;
+            (min, max) = SpanStatistics.MinMax(x[from..(to + 1)]);
         }
 
         lead.PeakSlope = peak;

@@ -2,18 +2,25 @@ using System.Numerics;
 using System.Runtime.InteropServices;
 using System.Runtime.Intrinsics;
 
-namespace LongRecord.Analysis.Quality;
+namespace LongRecord.Analysis.Numerics;
 
-/// <summary>Vectorised reductions for the block statistics; a span's sum is taken in an order fixed by the span alone.</summary>
+/// <summary>
+/// Vectorised reductions over spans of samples (gaps, extremes, the quality monitor's block statistics); a span's sum is
+/// taken in an order fixed by the span alone, and every result equals the one-element-at-a-time loop's.
+/// </summary>
 internal static class SpanStatistics
 {
+    /// <summary>
+    /// Whether the span holds a NaN (a gap in the signal). <c>ContainsAnyExceptInRange(−∞, +∞)</c> answers the same
+    /// question, but for floating-point types it runs one element and two comparisons at a time (it was the largest
+    /// single item of delineation's own time).
+    /// </summary>
     public static bool HasNaN(ReadOnlySpan<float> x)
     {
         var i = 0;
         if (Vector.IsHardwareAccelerated && x.Length >= Vector<float>.Count)
         {
-            var vectors = MemoryMarshal.Cast<float, Vector<float>>(x);
-            foreach (var v in vectors)
+            foreach (var v in MemoryMarshal.Cast<float, Vector<float>>(x))
             {
                 if (!Vector.EqualsAll(v, v))
                 {
@@ -21,12 +28,40 @@ internal static class SpanStatistics
                 }
             }
 
-            i = vectors.Length * Vector<float>.Count;
+            i = x.Length - x.Length % Vector<float>.Count;
         }
 
         for (; i < x.Length; i++)
         {
             if (float.IsNaN(x[i]))
+            {
+                return true;
+            }
+        }
+
+        return false;
+    }
+
+    /// <summary>Whether the span holds a NaN.</summary>
+    public static bool HasNaN(ReadOnlySpan<double> x)
+    {
+        var i = 0;
+        if (Vector.IsHardwareAccelerated && x.Length >= Vector<double>.Count)
+        {
+            foreach (var v in MemoryMarshal.Cast<double, Vector<double>>(x))
+            {
+                if (!Vector.EqualsAll(v, v))
+                {
+                    return true;
+                }
+            }
+
+            i = x.Length - x.Length % Vector<double>.Count;
+        }
+
+        for (; i < x.Length; i++)
+        {
+            if (double.IsNaN(x[i]))
             {
                 return true;
             }
@@ -118,6 +153,48 @@ internal static class SpanStatistics
         }
 
         return (min, max);
+    }
+
+    /// <summary>
+    /// The largest |x[i]| and the first index holding it, or (0, −1) when every value is 0 (no value is NaN). The same
+    /// as the loop that keeps a value only when it exceeds the largest so far, starting from 0.
+    /// </summary>
+    public static (float Peak, int At) AbsolutePeak(ReadOnlySpan<float> x)
+    {
+        var peak = 0f;
+        var i = 0;
+        if (Vector.IsHardwareAccelerated && x.Length >= Vector<float>.Count)
+        {
+            var vectors = MemoryMarshal.Cast<float, Vector<float>>(x);
+            var vmax = Vector<float>.Zero;
+            foreach (var v in vectors)
+            {
+                vmax = Vector.Max(vmax, Vector.Abs(v));
+            }
+
+            peak = LaneMax(vmax);
+            i = vectors.Length * Vector<float>.Count;
+        }
+
+        for (; i < x.Length; i++)
+        {
+            peak = Math.Max(peak, Math.Abs(x[i]));
+        }
+
+        if (!(peak > 0))
+        {
+            return (0, -1);
+        }
+
+        for (var j = 0; j < x.Length; j++)
+        {
+            if (Math.Abs(x[j]) == peak)
+            {
+                return (peak, j);
+            }
+        }
+
+        throw new InvalidOperationException("the peak was not found again");
     }
 
     /// <summary>
