@@ -1,4 +1,4 @@
-using System.Numerics;
+using LongRecord.Analysis.Numerics;
 
 namespace LongRecord.Analysis.Quality;
 
@@ -192,46 +192,18 @@ internal sealed class LeadWindowAssessor
         }
     }
 
-    // The k-th smallest value (0-based) of at most MaxContextBlocks values: the value with exactly k values before it
-    // in ascending order, equal values ordered by position. Counting, for each value, the values below it is
-    // branch-free vector work; keeping the k + 1 smallest in order while the values pass (SelectInOrder) mispredicted
-    // a branch on most values. A NaN has no rank, so values with one keep the old way and its answer.
+    // The k-th smallest value (0-based) of at most MaxContextBlocks values, by rank (Selection.Nth on a copy). A NaN
+    // has no rank, so values with one keep the old way and its answer.
     private static float Select(ReadOnlySpan<float> values, int k)
     {
-        foreach (var v in values)
+        if (SpanStatistics.HasNaN(values))
         {
-            if (float.IsNaN(v))
-            {
-                return SelectInOrder(values, k);
-            }
+            return SelectInOrder(values, k);
         }
 
-        var width = Vector<float>.Count;
-        Span<float> padded = stackalloc float[MaxContextBlocks + Vector<float>.Count];
-        // The padding (+∞, after every value) is never counted: below no value, and before none.
-        padded.Fill(float.PositiveInfinity);
-        values.CopyTo(padded);
-        var n = values.Length;
-        for (var i = 0; i < n; i++)
-        {
-            var v = values[i];
-            var vs = new Vector<float>(v);
-            var below = 0;
-            for (var j = 0; j < n; j += width)
-            {
-                var block = new Vector<float>(padded[j..]);
-                var earlier = Vector.LessThan(Vector<int>.Indices + new Vector<int>(j), new Vector<int>(i));
-                var counted = Vector.LessThan(block, vs) | (Vector.Equals(block, vs) & earlier);
-                below -= Vector.Sum(counted);
-            }
-
-            if (below == k)
-            {
-                return v;
-            }
-        }
-
-        throw new InvalidOperationException($"no value of rank {k} among {values.Length}");
+        Span<float> copy = stackalloc float[MaxContextBlocks];
+        values.CopyTo(copy);
+        return Selection.Nth(copy[..values.Length], k);
     }
 
     // The k + 1 smallest kept in order while the values pass (k is 4 or 5 here).

@@ -1,5 +1,6 @@
 using System.Runtime.Intrinsics;
 using System.Runtime.Intrinsics.X86;
+using LongRecord.Analysis.Numerics;
 
 namespace LongRecord.Analysis.Beats.Delineation;
 

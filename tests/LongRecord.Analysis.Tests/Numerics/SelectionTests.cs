@@ -1,11 +1,11 @@
-using LongRecord.Analysis.Beats.Delineation;
+using LongRecord.Analysis.Numerics;
 
-namespace LongRecord.Analysis.Tests.Delineation;
+namespace LongRecord.Analysis.Tests.Numerics;
 
 /// <summary>
-/// The order statistics the delineator's noise levels and P-wave correlations rest on, against the definition: the
-/// value at position n of the sorted values. Short spans are taken by rank and long ones by partitioning; both must
-/// give the sorted array's value, ties and all.
+/// The order statistics the delineator's noise levels, its P-wave correlations and the quality windows' quiet levels
+/// rest on, against the definition: the value at position n of the sorted values. Short spans are taken by rank and
+/// long ones by partitioning; both must give the sorted array's value, ties and all.
 /// </summary>
 public sealed class SelectionTests
 {

@@ -1,6 +1,7 @@
+using System.Numerics;
 using System.Runtime.Intrinsics;
 
-namespace LongRecord.Analysis.Beats.Delineation;
+namespace LongRecord.Analysis.Numerics;
 
 /// <summary>Order statistics in place (Hoare's selection), so a median costs linear time and no allocation.</summary>
 internal static class Selection
@@ -66,32 +67,47 @@ internal static class Selection
     private const int RankLimit = 64;
 
     // The n-th smallest by counting, for each value, the values below it and at or below it; null when no value
-    // qualifies (a NaN among them), so the partitioning decides as before.
+    // qualifies (a NaN among them), so the partitioning decides as before. With vectors, eight candidates at a time
+    // against every value broadcast in turn (no sum across lanes per candidate); the first candidate that qualifies
+    // is the answer either way.
     private static float? ByRank(ReadOnlySpan<float> values, int n)
     {
         var count = values.Length;
+        if (Vector256.IsHardwareAccelerated)
+        {
+            // Padding candidates are NaN: no value is below or equal to them, so they never qualify.
+            Span<float> candidates = stackalloc float[RankLimit + 8];
+            values.CopyTo(candidates);
+            candidates.Slice(count, 8).Fill(float.NaN);
+            var nv = Vector256.Create(n);
+            for (var c = 0; c < count; c += 8)
+            {
+                var vv = Vector256.Create(candidates.Slice(c, 8));
+                var lt = Vector256<int>.Zero;
+                var le = Vector256<int>.Zero;
+                foreach (var x in values)
+                {
+                    var xv = Vector256.Create(x);
+                    lt -= Vector256.GreaterThan(vv, xv).AsInt32();
+                    le -= Vector256.GreaterThanOrEqual(vv, xv).AsInt32();
+                }
+
+                var qualifies = Vector256.LessThanOrEqual(lt, nv) & Vector256.GreaterThan(le, nv);
+                var mask = qualifies.ExtractMostSignificantBits();
+                if (mask != 0)
+                {
+                    return candidates[c + BitOperations.TrailingZeroCount(mask)];
+                }
+            }
+
+            return null;
+        }
+
         for (var c = 0; c < count; c++)
         {
             var v = values[c];
             int below = 0, atOrBelow = 0;
-            var i = 0;
-            if (Vector256.IsHardwareAccelerated)
-            {
-                var vv = Vector256.Create(v);
-                var lt = Vector256<int>.Zero;
-                var le = Vector256<int>.Zero;
-                for (; i + 8 <= count; i += 8)
-                {
-                    var x = Vector256.Create(values.Slice(i, 8));
-                    lt -= Vector256.LessThan(x, vv).AsInt32();
-                    le -= Vector256.LessThanOrEqual(x, vv).AsInt32();
-                }
-
-                below = Vector256.Sum(lt);
-                atOrBelow = Vector256.Sum(le);
-            }
-
-            for (; i < count; i++)
+            for (var i = 0; i < count; i++)
             {
                 below += values[i] < v ? 1 : 0;
                 atOrBelow += values[i] <= v ? 1 : 0;
