@@ -31,27 +31,18 @@ internal static class TWaveEndSearch
         level /= p.Level;
 
         // The T peak: the interior local extremum furthest from the level.
-        // The tests combine without short-circuits (one rarely taken branch per sample instead of several that
-        // follow the noise), over the stretch sliced once.
         var peakAt = -1;
         var most = 0f;
-        var stretch = w[from..(to + 1)];
-        var before = stretch[0];
-        var here = stretch[1];
-        for (var j = 1; j + 1 < stretch.Length; j++)
+        for (var i = from + 1; i < to; i++)
         {
-            var after = stretch[j + 1];
-            var v = here - level;
-            var isMax = (here >= before) & (here > after);
-            var isMin = (here <= before) & (here < after);
-            if (((isMax & (v > 0)) | (isMin & (v < 0))) & (Math.Abs(v) > most))
+            var v = w[i] - level;
+            var isMax = w[i] >= w[i - 1] && w[i] > w[i + 1];
+            var isMin = w[i] <= w[i - 1] && w[i] < w[i + 1];
+            if (((isMax && v > 0) || (isMin && v < 0)) && Math.Abs(v) > most)
             {
                 most = Math.Abs(v);
-                peakAt = from + j;
+                peakAt = i;
             }
-
-            before = here;
-            here = after;
         }
 
         if (peakAt < 0)
