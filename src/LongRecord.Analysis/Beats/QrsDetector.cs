@@ -281,7 +281,7 @@ public sealed partial class QrsDetector
     // Derivative, squaring and moving-window integration of the paper, for every lead over a chunk whose first sample
     // is sample _n (lead k's at k × stride + offset of the band-passed block); results go into the rings at the chunk's
     // slots. The derivative and the squares are vector work; each lead's running sum is one chain of additions, kept in
-    // the scalar order so that every value is the same, and up to three leads' chains run side by side.
+    // the scalar order so that every value is the same, and two or three leads' chains run side by side.
     private void FrontEnd(ReadOnlySpan<float> bandPassed, int stride, int offset, int n)
     {
         var window = _window;
@@ -300,7 +300,11 @@ public sealed partial class QrsDetector
             RunningSums3(k0, n);
         }
 
-        for (; k0 < _leads; k0++)
+        if (k0 + 2 == _leads)
+        {
+            RunningSums2(k0, n);
+        }
+        else if (k0 + 1 == _leads)
         {
             RunningSums1(k0, n);
         }
@@ -331,6 +335,27 @@ public sealed partial class QrsDetector
         }
 
         _integralSum[k] = sum;
+    }
+
+    // Leads k and k + 1 as RunningSums1 does each, in one loop (a two-lead recording's two chains side by side).
+    private void RunningSums2(int k, int n)
+    {
+        var window = _window;
+        var qa = _squares[k].AsSpan(0, window + n);
+        var qb = _squares[k + 1].AsSpan(0, window + n);
+        var sa = _chunkSums.AsSpan(k * _chunk, n);
+        var sb = _chunkSums.AsSpan((k + 1) * _chunk, n);
+        double a = _integralSum[k], b = _integralSum[k + 1];
+        for (var i = 0; i < n; i++)
+        {
+            a += qa[window + i] - qa[i];
+            b += qb[window + i] - qb[i];
+            sa[i] = a;
+            sb[i] = b;
+        }
+
+        _integralSum[k] = a;
+        _integralSum[k + 1] = b;
     }
 
     // Leads k … k + 2 as RunningSums1 does each, in one loop: three independent chains instead of one after another.
