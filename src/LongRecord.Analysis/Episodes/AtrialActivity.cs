@@ -17,12 +17,19 @@ internal static class AtrialActivity
     private const double ClusterTolerance = 0.12;
     private const int MinClusterIntervals = 20;
 
+    // Sinus beats before the episode needed to judge how often this recording shows its P waves (our choice).
+    private const int MinSinusJudged = 10;
+
+    // Below this share of P waves found, the beats before an episode are not taken for sinus beats (our choice).
+    private const double MinSinusReferenceShare = 0.5;
+
     public static AtrialFinding Measure(IReadOnlyList<SignalWindow> windows, BeatTrack t, int first, int last, RrRegularity regularity, EpisodeSettings s)
     {
         var pShare = PBeforeShare(t, first, last);
         var episode = new List<float[]>();
         var sinus = new List<float[]>();
         var fastRr = 60.0 / s.TachycardiaRateBpm;
+        int sinusJudged = 0, sinusWithP = 0;
         foreach (var w in windows)
         {
             for (var i = Math.Max(0, t.FirstAtOrAfter(w.StartSample / t.RateHz)); i < t.Count && t[i].Sample < w.EndSample; i++)
@@ -34,6 +41,12 @@ internal static class AtrialActivity
                     continue;
                 }
 
+                if (sinusLike && t[i].PWave >= 0)
+                {
+                    sinusJudged++;
+                    sinusWithP += t[i].PWave == 1 ? 1 : 0;
+                }
+
                 var v = PWaveShapes.Vector(w, t[i]);
                 if (v is not null)
                 {
@@ -42,6 +55,7 @@ internal static class AtrialActivity
             }
         }
 
+        var pPresent = PPresentShare(sinusJudged, sinusWithP, s);
         var episodeMean = PWaveShapes.Mean(episode);
         var sinusMean = sinus.Count >= 3 ? PWaveShapes.Mean(sinus) : null;
         var sinusCorrelation = episodeMean is not null && sinusMean is not null && episode.Count >= 3
@@ -84,7 +98,7 @@ internal static class AtrialActivity
                 }
             }
 
-            finding = locked >= s.LockedWaveIndex ? "flutter-waves-locked" : PFinding(pShare, s);
+            finding = locked >= s.LockedWaveIndex ? "flutter-waves-locked" : PFinding(pShare, pPresent, s);
             if (finding != "flutter-waves-locked")
             {
                 atrialBpm = double.NaN;
@@ -128,13 +142,15 @@ internal static class AtrialActivity
 
             finding = cluster >= s.FlutterClusterShare ? "flutter-waves"
                 : pShare < s.PBeforeQrsShare && bandShare >= 0.5 ? "fibrillatory-waves"
-                : PFinding(pShare, s);
+                : PFinding(pShare, pPresent, s);
         }
 
         return new AtrialFinding
         {
             Finding = finding,
             PBeforeShare = pShare,
+            PPresentShare = pPresent,
+            SinusPShare = sinusJudged >= MinSinusJudged ? (double)sinusWithP / sinusJudged : double.NaN,
             PShapes = shapes,
             DominantPShare = dominant,
             SinusPCorrelation = sinusCorrelation,
@@ -163,6 +179,20 @@ internal static class AtrialActivity
         return judged > 0 ? (double)with / judged : double.NaN;
     }
 
-    private static string PFinding(double pShare, EpisodeSettings s) =>
-        double.IsNaN(pShare) ? "unclear" : pShare >= s.PBeforeQrsShare ? "p-waves" : pShare <= s.PAbsentShare ? "p-after-qrs" : "unclear";
+    /// <summary>
+    /// The share of beats with a P wave that counts as "a P before every QRS" in this recording: the settings' share,
+    /// scaled down where the recording's own sinus beats before the episode show a P wave less often than clean sinus
+    /// beats do (noise hides P waves from the beat-by-beat search as much inside an episode as before it). The
+    /// settings' share when fewer than MinSinusJudged beats were judged, or when under half of them show a P wave: a
+    /// sinus rhythm shows its P in most beats even in noise, so such beats are no sinus reference (AF or flutter
+    /// before the episode, as in MITDB 202).
+    /// </summary>
+    public static double PPresentShare(int sinusJudged, int sinusWithP, EpisodeSettings s)
+    {
+        var share = sinusJudged >= MinSinusJudged ? (double)sinusWithP / sinusJudged : double.NaN;
+        return share >= MinSinusReferenceShare ? Math.Min(1, share / s.SinusPFoundShare) * s.PBeforeQrsShare : s.PBeforeQrsShare;
+    }
+
+    private static string PFinding(double pShare, double pPresent, EpisodeSettings s) =>
+        double.IsNaN(pShare) ? "unclear" : pShare >= pPresent ? "p-waves" : pShare <= s.PAbsentShare ? "p-after-qrs" : "unclear";
 }

@@ -43,6 +43,15 @@ public sealed record AtrialFinding
     /// <summary>Share of the episode's beats with a P wave in the PR window (from the beats stage); NaN when not judged.</summary>
     public double PBeforeShare { get; init; } = double.NaN;
 
+    /// <summary>
+    /// The share of beats with a P wave that counts as a P before every QRS in this recording (see
+    /// <c>AtrialActivity.PPresentShare</c>): the settings' share, lower where the sinus beats before show P waves less often.
+    /// </summary>
+    public double PPresentShare { get; init; } = double.NaN;
+
+    /// <summary>Share of the sinus beats before the episode with a P wave found, among those judged; NaN when too few.</summary>
+    public double SinusPShare { get; init; } = double.NaN;
+
     /// <summary>Distinct P shapes among the beats with a P wave; 0 when not measured.</summary>
     public int PShapes { get; init; }
 
