@@ -16,6 +16,9 @@ internal static class LockedAtrialWaves
 {
     private const double MaskBeforeS = 0.05, MaskAfterS = 0.07;
 
+    // Least share of a stretch's power that must be signal for the noise correction to apply (our choice).
+    private const double MinReliability = 0.3;
+
     /// <summary>The index for n waves per cycle; NaN with too few regular beats.</summary>
     public static double Index(SignalWindow w, BeatTrack t, int first, int last, double medianRrS, int n, double fastRrS)
     {
@@ -23,7 +26,7 @@ internal static class LockedAtrialWaves
         var leads = w.Leads;
         var length = (int)Math.Round(medianRrS * fs);
         var halfL = length / 2;
-        var cycle = MeanCycle(w, t, first, last, medianRrS, length, out var count);
+        var cycle = MeanCycle(w, t, first, last, medianRrS, length, out var count, out var noise);
         if (count < 6)
         {
             return double.NaN;
@@ -34,15 +37,20 @@ internal static class LockedAtrialWaves
             var d = TDirection(w, t, first, fastRrS) ?? OwnTDirection(cycle, leads, length, halfL + (int)Math.Round(0.08 * fs), halfL + halfL);
             for (var j = 0; j < length; j++)
             {
-                double dot = 0;
+                double dot = 0, alongD = 0;
                 for (var a = 0; a < leads; a++)
                 {
                     dot += cycle[a * length + j] * d[a];
+                    alongD += d[a] * d[a] * noise[a * length + j];
                 }
 
                 for (var a = 0; a < leads; a++)
                 {
                     cycle[a * length + j] -= dot * d[a];
+                    // The noise left in lead a once the direction is projected out (the leads' noise taken as
+                    // independent): var(x_a − (Σ_b d_b x_b) d_a).
+                    var v = noise[a * length + j];
+                    noise[a * length + j] = v * (1 - 2 * d[a] * d[a]) + d[a] * d[a] * alongD;
                 }
             }
         }
@@ -50,10 +58,11 @@ internal static class LockedAtrialWaves
         var mask0 = halfL - (int)Math.Round(MaskBeforeS * fs);
         var mask1 = halfL + (int)Math.Round(MaskAfterS * fs);
         var shift = (int)Math.Round((double)length / n);
-        double ab = 0, aa = 0, bb = 0;
+        double ab = 0, aa = 0, bb = 0, aaNoise = 0, bbNoise = 0;
         for (var lead = 0; lead < leads; lead++)
         {
             var span = cycle.AsSpan(lead * length, length);
+            var spanNoise = noise.AsSpan(lead * length, length);
             double mean = 0;
             var kept = 0;
             for (var j = 0; j < length; j++)
@@ -77,16 +86,32 @@ internal static class LockedAtrialWaves
                 ab += (span[j] - mean) * (span[k] - mean);
                 aa += (span[j] - mean) * (span[j] - mean);
                 bb += (span[k] - mean) * (span[k] - mean);
+                aaNoise += spanNoise[j];
+                bbNoise += spanNoise[k];
             }
         }
 
-        return aa > 0 && bb > 0 ? ab / Math.Sqrt(aa * bb) : double.NaN;
+        if (!(aa > 0 && bb > 0))
+        {
+            return double.NaN;
+        }
+
+        // The noise left in the mean adds to each stretch's power but not to their product (the two stretches are
+        // different samples), so it lowers the correlation by the square root of the two stretches' reliabilities
+        // (signal power over total); Spearman's correction for attenuation (1904) divides it back out. A mean that is
+        // mostly noise is left uncorrected: its correlation says little either way.
+        double relA = 1 - aaNoise / aa, relB = 1 - bbNoise / bb;
+        var r = ab / Math.Sqrt(aa * bb);
+        return relA >= MinReliability && relB >= MinReliability ? Math.Min(1, r / Math.Sqrt(relA * relB)) : r;
     }
 
-    private static double[] MeanCycle(SignalWindow w, BeatTrack t, int first, int last, double medianRrS, int length, out int count)
+    // The mean cycle, and in `noise` the variance of each of its samples as an estimate (the beats' variance about the
+    // mean over their number).
+    private static double[] MeanCycle(SignalWindow w, BeatTrack t, int first, int last, double medianRrS, int length, out int count, out double[] noise)
     {
         var halfL = length / 2;
         var cycle = new double[w.Leads * length];
+        var squares = new double[w.Leads * length];
         count = 0;
         for (var i = first + 1; i < last; i++)
         {
@@ -102,16 +127,20 @@ internal static class LockedAtrialWaves
                 var x = w.Lead(lead);
                 for (var j = 0; j < length; j++)
                 {
-                    cycle[lead * length + j] += float.IsNaN(x[c + j]) ? 0 : x[c + j];
+                    double v = float.IsNaN(x[c + j]) ? 0 : x[c + j];
+                    cycle[lead * length + j] += v;
+                    squares[lead * length + j] += v * v;
                 }
             }
 
             count++;
         }
 
+        noise = new double[cycle.Length];
         for (var j = 0; j < cycle.Length && count > 0; j++)
         {
             cycle[j] /= count;
+            noise[j] = count > 1 ? Math.Max(0, squares[j] / count - cycle[j] * cycle[j]) * count / (count - 1) / count : 0;
         }
 
         return cycle;

@@ -53,7 +53,8 @@ internal readonly record struct RrRegularity(int Intervals, double MeanRrS, doub
 
     /// <summary>
     /// Share of the RR intervals within <paramref name="tolerance"/> cycles of a whole number (≥ 1) of cycles of
-    /// <paramref name="cycleS"/>, searched over cycles within ± 4 % (the spectral estimate's error) in 0.5 % steps.
+    /// <paramref name="cycleS"/>, searched over cycles within ± 4 % (the spectral estimate's error) in 0.5 % steps; the
+    /// cycle returned is the best one refined by least squares over its on-grid intervals.
     /// </summary>
     public static (double Share, double CycleS) ClusterAtMultiples(BeatTrack t, int first, int last, double cycleS, double tolerance)
     {
@@ -80,6 +81,31 @@ internal readonly record struct RrRegularity(int Intervals, double MeanRrS, doub
             }
         }
 
-        return best;
+        return (best.Share, Refine(t, first, last, best.CycleS, tolerance));
+    }
+
+    // The cycle that fits the on-grid intervals best in the least-squares sense, Σ RR·m ÷ Σ m² over the intervals
+    // within the tolerance of m cycles: the search above only steps by 0.5 % and its share is flat across the
+    // tolerance, while four cycles of a 3 % error put a 4:1 interval near the edge (variable flutter at 290/min read
+    // 298/min from the spectrum, and its 4:1 intervals fell off the grid in noise).
+    private static double Refine(BeatTrack t, int first, int last, double cycleS, double tolerance)
+    {
+        double rm = 0, mm = 0;
+        for (var i = first + 1; i <= last; i++)
+        {
+            if (!t.HasRr(i))
+            {
+                continue;
+            }
+
+            var m = Math.Round(t.RrS[i] / cycleS);
+            if (m >= 1 && Math.Abs(t.RrS[i] - m * cycleS) <= tolerance * cycleS)
+            {
+                rm += t.RrS[i] * m;
+                mm += m * m;
+            }
+        }
+
+        return mm > 0 ? rm / mm : cycleS;
     }
 }
