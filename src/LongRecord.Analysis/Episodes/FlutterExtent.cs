@@ -13,6 +13,9 @@ internal static class FlutterExtent
 {
     private const double Tolerance = 0.12;
 
+    // Between two flutter pieces: the tolerance of FlutterBetween, and the longest stretch it joins (our choices).
+    private const double BetweenTolerance = 0.18, MaxBetweenS = 30;
+
     public static List<Draft> Extend(List<Draft> drafts, BeatTrack t, AnalysisSettings settings)
     {
         var result = new List<Draft>();
@@ -67,6 +70,11 @@ internal static class FlutterExtent
                 var p = merged[^1];
                 var pFlutter = p.RawKind == EpisodeKinds.Flutter;
                 var dFlutter = d.RawKind == EpisodeKinds.Flutter;
+                if (dFlutter && JoinAcross(merged, d, t, ventricularInside))
+                {
+                    continue;
+                }
+
                 if (pFlutter && dFlutter && d.First <= p.Last + 1)
                 {
                     merged[^1] = p with { Last = Math.Max(p.Last, d.Last) };
@@ -111,6 +119,64 @@ internal static class FlutterExtent
         merged.AddRange(ventricularInside);
         merged.Sort((a, b) => a.First.CompareTo(b.First));
         return merged;
+    }
+
+    // A flutter draft joins the last flutter one before it across the drafts between (which it then absorbs, but for
+    // ventricular runs) when the intervals between the two are the flutter's (FlutterBetween).
+    private static bool JoinAcross(List<Draft> merged, Draft d, BeatTrack t, List<Draft> ventricularInside)
+    {
+        var q = merged.FindLastIndex(m => m.RawKind == EpisodeKinds.Flutter);
+        if (q < 0 || d.First <= merged[q].Last + 1 || !FlutterBetween(t, merged[q], d))
+        {
+            return false;
+        }
+
+        var last = d.Last;
+        for (var i = q + 1; i < merged.Count; i++)
+        {
+            last = Math.Max(last, merged[i].Last);
+            if (merged[i].Episode.Kind is EpisodeKinds.VeRun or EpisodeKinds.BroadTachycardia)
+            {
+                ventricularInside.Add(merged[i]);
+            }
+        }
+
+        merged[q] = merged[q] with { Last = last };
+        merged.RemoveRange(q + 1, merged.Count - q - 1);
+        return true;
+    }
+
+    // Between two flutter pieces, every interval within a wider tolerance of a whole number (≥ 2) of the cycle and at
+    // least a quarter of them 2:1 or 3:1: the same flutter, whose beats the walk could not follow in noise (a beat's
+    // time moved by 30 ms breaks it). Sinus rhythm beside flutter can land near four cycles, never near two or three
+    // beat after beat.
+    private static bool FlutterBetween(BeatTrack t, Draft p, Draft d)
+    {
+        var cycle = 60 / p.Episode.Atrial.AtrialRateBpm;
+        if (!(cycle > 0) || t.TimeS(d.First) - t.TimeS(p.Last) > MaxBetweenS)
+        {
+            return false;
+        }
+
+        int intervals = 0, shortOnes = 0;
+        for (var i = p.Last + 1; i <= d.First; i++)
+        {
+            if (!t.HasRr(i))
+            {
+                return false;
+            }
+
+            var m = Math.Round(t.RrS[i] / cycle);
+            if (m < 2 || Math.Abs(t.RrS[i] - m * cycle) > BetweenTolerance * cycle)
+            {
+                return false;
+            }
+
+            intervals++;
+            shortOnes += m <= 3 ? 1 : 0;
+        }
+
+        return intervals > 0 && shortOnes >= 0.25 * intervals;
     }
 
     // The RR ending at beat i is a whole number (≥ 2) of flutter cycles, or it is together with the RR before or after
