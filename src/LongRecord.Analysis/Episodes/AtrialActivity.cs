@@ -187,11 +187,12 @@ internal static class AtrialActivity
     /// sinus rhythm shows its P in most beats even in noise, so such beats are no sinus reference (AF or flutter
     /// before the episode, as in MITDB 202).
     /// </summary>
-    public static double PPresentShare(int sinusJudged, int sinusWithP, EpisodeSettings s)
-    {
-        var share = sinusJudged >= MinSinusJudged ? (double)sinusWithP / sinusJudged : double.NaN;
-        return share >= MinSinusReferenceShare ? Math.Min(1, share / s.SinusPFoundShare) * s.PBeforeQrsShare : s.PBeforeQrsShare;
-    }
+    public static double PPresentShare(int sinusJudged, int sinusWithP, EpisodeSettings s) =>
+        PPresentShare(sinusJudged >= MinSinusJudged ? (double)sinusWithP / sinusJudged : double.NaN, s);
+
+    /// <summary>The same from the share of sinus beats with a P wave found (NaN: not measured).</summary>
+    public static double PPresentShare(double sinusShare, EpisodeSettings s) =>
+        sinusShare >= MinSinusReferenceShare ? Math.Min(1, sinusShare / s.SinusPFoundShare) * s.PBeforeQrsShare : s.PBeforeQrsShare;
 
     private static string PFinding(double pShare, double pPresent, EpisodeSettings s) =>
         double.IsNaN(pShare) ? "unclear" : pShare >= pPresent ? "p-waves" : pShare <= s.PAbsentShare ? "p-after-qrs" : "unclear";
