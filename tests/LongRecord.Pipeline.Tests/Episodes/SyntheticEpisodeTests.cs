@@ -51,19 +51,24 @@ public sealed class SyntheticEpisodeTests(ITestOutputHelper output)
         Assert.True(score.OnsetAccuracy >= 0.95, score.Summary("24 dB"));
     }
 
-    [Fact(Skip = "not reached at 12 and 6 dB: episode Se 92.3 % (12/13, +P 90.0 % 18/20; 76.9 % and 80.0 % before the P-present share was lowered where the sinus beats before an episode show their P waves less often — the focal atrial tachycardia and MAT are now found; 66.7 % +P before noisy beats took their template's QRS boundaries and a Q after a compensatory pause stopped joining two V into a run) and 30.8 % (4/13, +P 17.1 % 6/35) < 98 %. At 12 dB the 2:1 flutter reads svt (P before the QRS in 52 %, its locked flutter waves not found in the noise), variable flutter is found from 36.5 s (truth 30.3 s) with a false atrial bigeminy at its start. At 6 dB the noise carries about as much segment energy as the QRS: many beats are Q, the detector adds beats, and ve-runs and sve-runs appear in AF and flutter")]
-    public void Catalogue_At12And6dB_SeAtLeast98_PPAtLeast95_TimedWithin2s_KindAndOnsetTypeAtLeast95()
+    [Fact]
+    public void Catalogue_At12dB_SeAtLeast98_PPAtLeast95_TimedWithin2s_KindAndOnsetTypeAtLeast95() => AllChecksAt(12);
+
+    [Fact(Skip = "not reached at 6 dB: episode Se 30.8 % (4/13), +P 17.1 % (6/35), timing 0 % (0/4), kind 30.8 %, onset type 66.7 % "
+        + "(12 dB, 76.9 % Se at the start of the session of 2026-12-04 (eighth), is reached since the P-present share and the flutter "
+        + "findings allow for the noise): at 6 dB the noise carries about as much segment energy as the QRS: many beats are Q, the "
+        + "detector adds beats, and ve-runs and sve-runs appear in AF and flutter; the focal atrial tachycardia is taken as nothing")]
+    public void Catalogue_At6dB_SeAtLeast98_PPAtLeast95_TimedWithin2s_KindAndOnsetTypeAtLeast95() => AllChecksAt(6);
+
+    private void AllChecksAt(double snr)
     {
-        foreach (var snr in new double[] { 12, 6 })
-        {
-            var score = Score(snr);
-            var line = score.Summary(Invariant($"{snr} dB"));
-            Assert.True(score.Sensitivity >= 0.98, line);
-            Assert.True(score.PositivePredictivity >= 0.95, line);
-            Assert.True(score.TimingShare >= 1.0, line);
-            Assert.True(score.KindAccuracy >= 0.95, line);
-            Assert.True(score.OnsetAccuracy >= 0.95, line);
-        }
+        var score = Score(snr);
+        var line = score.Summary(Invariant($"{snr} dB"));
+        Assert.True(score.Sensitivity >= 0.98, line);
+        Assert.True(score.PositivePredictivity >= 0.95, line);
+        Assert.True(score.TimingShare >= 1.0, line);
+        Assert.True(score.KindAccuracy >= 0.95, line);
+        Assert.True(score.OnsetAccuracy >= 0.95, line);
     }
 
     // The score at one SNR; every SNR's figures and misses are printed (and go into the figures table) on first use.
