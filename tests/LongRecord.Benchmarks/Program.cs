@@ -104,7 +104,7 @@ public static class Program
 
         var beatsAllocated = (GC.GetTotalAllocatedBytes(precise: true) - allocated0) / 5.0;
         var beatsCollections = (GC.CollectionCount(0) - collections0) / 5.0;
-        Console.WriteLine("  stages of the last run: " + BeatsBenchmarks.LastTimings);
+        Console.WriteLine("  stages of the last 2 h pass (multiply by 12 for 24 h): " + BeatsBenchmarks.LastTimings);
         Console.WriteLine(FormattableString.Invariant($"  allocated per 24 h: {beatsAllocated * 12 / 1048576:F0} MB, {beatsCollections * 12:F0} gen-0 collections"));
         var day = RhythmBenchmarks.DayOfBeats();
         LongRecord.Analysis.Rhythm.RhythmAnalyser.Analyse(day);
