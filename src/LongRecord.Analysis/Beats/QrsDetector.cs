@@ -99,8 +99,8 @@ public sealed partial class QrsDetector
         _derivativeHistory = new float[leads][];
         _squares = new float[leads][];
         _integralSum = new double[leads];
-        _chunkSlopes = new float[leads * _chunk];
-        _chunkSums = new double[leads * _chunk];
+        _chunkSlopes = new float[_chunk];
+        _chunkSums = new double[_chunk];
         _chunkIntegrated = new float[_chunk];
         _slope = new float[leads][];
         _integrated = new float[leads][];
@@ -151,7 +151,10 @@ public sealed partial class QrsDetector
         for (var done = 0; done < count;)
         {
             var chunk = Math.Min(count - done, _chunk);
-            FrontEnd(bp, count, done, chunk);
+            for (var k = 0; k < _leads; k++)
+            {
+                FrontEnd(k, bp.Slice(k * count + done, chunk));
+            }
 
             Decide(chunk);
             done += chunk;
@@ -278,55 +281,22 @@ public sealed partial class QrsDetector
         BiquadCascade.ProcessLeads(_bandPass, leads, count);
     }
 
-    // Derivative, squaring and moving-window integration of the paper, for every lead over a chunk whose first sample
-    // is sample _n (lead k's at k × stride + offset of the band-passed block); results go into the rings at the chunk's
-    // slots. The derivative and the squares are vector work; each lead's running sum is one chain of additions, kept in
-    // the scalar order so that every value is the same, and two or three leads' chains run side by side.
-    private void FrontEnd(ReadOnlySpan<float> bandPassed, int stride, int offset, int n)
+    // Derivative, squaring and moving-window integration of the paper, for one lead over a chunk whose first sample
+    // is sample _n; results go into the rings at the chunk's slots. The derivative and the squares are vector work; the
+    // running sum is one chain of additions, kept in the scalar order so that every value is the same.
+    private void FrontEnd(int k, ReadOnlySpan<float> x)
     {
+        var n = x.Length;
+        // The lead's last four band-passed samples, then this chunk's.
+        var history = _derivativeHistory[k];
+        x.CopyTo(history.AsSpan(DerivativeOrder));
+        // The squares of the last window's samples, then this chunk's.
+        var squares = _squares[k];
         var window = _window;
-        for (var k = 0; k < _leads; k++)
-        {
-            // The lead's last four band-passed samples, then this chunk's; the squares of the last window's samples,
-            // then this chunk's.
-            var history = _derivativeHistory[k];
-            bandPassed.Slice(k * stride + offset, n).CopyTo(history.AsSpan(DerivativeOrder));
-            Derivative(history.AsSpan(0, DerivativeOrder + n), (float)(_fs / 8.0), _chunkSlopes.AsSpan(k * _chunk, n), _squares[k].AsSpan(window, n));
-        }
+        var slopes = _chunkSlopes.AsSpan(0, n);
+        Derivative(history.AsSpan(0, DerivativeOrder + n), (float)(_fs / 8.0), slopes, squares.AsSpan(window, n));
 
-        var k0 = 0;
-        for (; k0 + 3 <= _leads; k0 += 3)
-        {
-            RunningSums3(k0, n);
-        }
-
-        if (k0 + 2 == _leads)
-        {
-            RunningSums2(k0, n);
-        }
-        else if (k0 + 1 == _leads)
-        {
-            RunningSums1(k0, n);
-        }
-
-        for (var k = 0; k < _leads; k++)
-        {
-            var integrated = _chunkIntegrated.AsSpan(0, n);
-            Integrate(_chunkSums.AsSpan(k * _chunk, n), 1.0 / window, integrated);
-            ToRing(_chunkSlopes.AsSpan(k * _chunk, n), _slope[k]);
-            ToRing(integrated, _integrated[k]);
-            var history = _derivativeHistory[k];
-            history.AsSpan(n, DerivativeOrder).CopyTo(history);
-            _squares[k].AsSpan(n, window).CopyTo(_squares[k]);
-        }
-    }
-
-    // The running sum of the window's squares for lead k: each new square in, the one a window older out.
-    private void RunningSums1(int k, int n)
-    {
-        var window = _window;
-        var squares = _squares[k].AsSpan(0, window + n);
-        var sums = _chunkSums.AsSpan(k * _chunk, n);
+        var sums = _chunkSums.AsSpan(0, n);
         var sum = _integralSum[k];
         for (var i = 0; i < n; i++)
         {
@@ -335,53 +305,12 @@ public sealed partial class QrsDetector
         }
 
         _integralSum[k] = sum;
-    }
-
-    // Leads k and k + 1 as RunningSums1 does each, in one loop (a two-lead recording's two chains side by side).
-    private void RunningSums2(int k, int n)
-    {
-        var window = _window;
-        var qa = _squares[k].AsSpan(0, window + n);
-        var qb = _squares[k + 1].AsSpan(0, window + n);
-        var sa = _chunkSums.AsSpan(k * _chunk, n);
-        var sb = _chunkSums.AsSpan((k + 1) * _chunk, n);
-        double a = _integralSum[k], b = _integralSum[k + 1];
-        for (var i = 0; i < n; i++)
-        {
-            a += qa[window + i] - qa[i];
-            b += qb[window + i] - qb[i];
-            sa[i] = a;
-            sb[i] = b;
-        }
-
-        _integralSum[k] = a;
-        _integralSum[k + 1] = b;
-    }
-
-    // Leads k … k + 2 as RunningSums1 does each, in one loop: three independent chains instead of one after another.
-    private void RunningSums3(int k, int n)
-    {
-        var window = _window;
-        var qa = _squares[k].AsSpan(0, window + n);
-        var qb = _squares[k + 1].AsSpan(0, window + n);
-        var qc = _squares[k + 2].AsSpan(0, window + n);
-        var sa = _chunkSums.AsSpan(k * _chunk, n);
-        var sb = _chunkSums.AsSpan((k + 1) * _chunk, n);
-        var sc = _chunkSums.AsSpan((k + 2) * _chunk, n);
-        double a = _integralSum[k], b = _integralSum[k + 1], c = _integralSum[k + 2];
-        for (var i = 0; i < n; i++)
-        {
-            a += qa[window + i] - qa[i];
-            b += qb[window + i] - qb[i];
-            c += qc[window + i] - qc[i];
-            sa[i] = a;
-            sb[i] = b;
-            sc[i] = c;
-        }
-
-        _integralSum[k] = a;
-        _integralSum[k + 1] = b;
-        _integralSum[k + 2] = c;
+        var integrated = _chunkIntegrated.AsSpan(0, n);
+        Integrate(sums, 1.0 / window, integrated);
+        ToRing(slopes, _slope[k]);
+        ToRing(integrated, _integrated[k]);
+        history.AsSpan(n, DerivativeOrder).CopyTo(history);
+        squares.AsSpan(n, window).CopyTo(squares);
     }
 
     // Five-point derivative of the paper, y = (2x[n] + x[n−1] − x[n−3] − 2x[n−4]) / 8 per sample interval, of x[4..]
