@@ -55,7 +55,8 @@ internal static class AtrialActivity
             }
         }
 
-        var pPresent = PPresentShare(sinusJudged, sinusWithP, s);
+        var sinusShare = sinusJudged >= MinSinusJudged ? (double)sinusWithP / sinusJudged : double.NaN;
+        var pFound = PFoundFactor(sinusShare, s);
         var episodeMean = PWaveShapes.Mean(episode);
         var sinusMean = sinus.Count >= 3 ? PWaveShapes.Mean(sinus) : null;
         var sinusCorrelation = episodeMean is not null && sinusMean is not null && episode.Count >= 3
@@ -98,7 +99,7 @@ internal static class AtrialActivity
                 }
             }
 
-            finding = locked >= s.LockedWaveIndex ? "flutter-waves-locked" : PFinding(pShare, pPresent, s);
+            finding = locked >= s.LockedWaveIndex ? "flutter-waves-locked" : PFinding(pShare, pFound, s);
             if (finding != "flutter-waves-locked")
             {
                 atrialBpm = double.NaN;
@@ -142,15 +143,15 @@ internal static class AtrialActivity
 
             finding = cluster >= s.FlutterClusterShare ? "flutter-waves"
                 : pShare < s.PBeforeQrsShare && bandShare >= 0.5 ? "fibrillatory-waves"
-                : PFinding(pShare, pPresent, s);
+                : PFinding(pShare, pFound, s);
         }
 
         return new AtrialFinding
         {
             Finding = finding,
             PBeforeShare = pShare,
-            PPresentShare = pPresent,
-            SinusPShare = sinusJudged >= MinSinusJudged ? (double)sinusWithP / sinusJudged : double.NaN,
+            PFoundFactor = pFound,
+            SinusPShare = sinusShare,
             PShapes = shapes,
             DominantPShare = dominant,
             SinusPCorrelation = sinusCorrelation,
@@ -180,20 +181,15 @@ internal static class AtrialActivity
     }
 
     /// <summary>
-    /// The share of beats with a P wave that counts as "a P before every QRS" in this recording: the settings' share,
-    /// scaled down where the recording's own sinus beats before the episode show a P wave less often than clean sinus
-    /// beats do (noise hides P waves from the beat-by-beat search as much inside an episode as before it). The
-    /// settings' share when fewer than MinSinusJudged beats were judged, or when under half of them show a P wave: a
-    /// sinus rhythm shows its P in most beats even in noise, so such beats are no sinus reference (AF or flutter
-    /// before the episode, as in MITDB 202).
+    /// How often this recording's beat-by-beat search finds a P wave where one stands, against clean sinus beats: the
+    /// share of the sinus beats before the episode with a P found over the settings' clean share, at most 1. Every
+    /// P-wave share test scales its threshold by it (noise hides P waves inside an episode as much as before it). 1
+    /// when too few sinus beats were judged (NaN) or under half of them show a P wave: a sinus rhythm shows its P in
+    /// most beats even in noise, so such beats are no sinus reference (AF or flutter before the episode, as in MITDB 202).
     /// </summary>
-    public static double PPresentShare(int sinusJudged, int sinusWithP, EpisodeSettings s) =>
-        PPresentShare(sinusJudged >= MinSinusJudged ? (double)sinusWithP / sinusJudged : double.NaN, s);
+    public static double PFoundFactor(double sinusShare, EpisodeSettings s) =>
+        sinusShare >= MinSinusReferenceShare ? Math.Min(1, sinusShare / s.SinusPFoundShare) : 1;
 
-    /// <summary>The same from the share of sinus beats with a P wave found (NaN: not measured).</summary>
-    public static double PPresentShare(double sinusShare, EpisodeSettings s) =>
-        sinusShare >= MinSinusReferenceShare ? Math.Min(1, sinusShare / s.SinusPFoundShare) * s.PBeforeQrsShare : s.PBeforeQrsShare;
-
-    private static string PFinding(double pShare, double pPresent, EpisodeSettings s) =>
-        double.IsNaN(pShare) ? "unclear" : pShare >= pPresent ? "p-waves" : pShare <= s.PAbsentShare ? "p-after-qrs" : "unclear";
+    private static string PFinding(double pShare, double pFound, EpisodeSettings s) =>
+        double.IsNaN(pShare) ? "unclear" : pShare >= pFound * s.PBeforeQrsShare ? "p-waves" : pShare <= s.PAbsentShare ? "p-after-qrs" : "unclear";
 }

@@ -44,10 +44,10 @@ public sealed record AtrialFinding
     public double PBeforeShare { get; init; } = double.NaN;
 
     /// <summary>
-    /// The share of beats with a P wave that counts as a P before every QRS in this recording (see
-    /// <c>AtrialActivity.PPresentShare</c>): the settings' share, lower where the sinus beats before show P waves less often.
+    /// How often P waves are found here against clean sinus beats (see <c>AtrialActivity.PFoundFactor</c>), 0.5–1: the
+    /// P-wave share thresholds are scaled by it; 1 when not measured or when the beats before were no sinus reference.
     /// </summary>
-    public double PPresentShare { get; init; } = double.NaN;
+    public double PFoundFactor { get; init; } = 1;
 
     /// <summary>Share of the sinus beats before the episode with a P wave found, among those judged; NaN when too few.</summary>
     public double SinusPShare { get; init; } = double.NaN;

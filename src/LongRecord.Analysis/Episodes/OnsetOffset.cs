@@ -62,11 +62,11 @@ internal static class OnsetOffset
         }
 
         // PBeforeShare leaves its first beat out: these are the n beats before the onset, and the episode's first n.
-        // The P waves count as standing before every QRS by the noise-aware share (AtrialActivity.PPresentShare): in
+        // The P waves count as standing before every QRS by the share scaled for noise (AtrialActivity.PFoundFactor): in
         // noise the sinus beats show them less often, and the test is whether the episode's first beats lost them.
         var before = AtrialActivity.PBeforeShare(t, first - n - 1, first - 1);
         var early = AtrialActivity.PBeforeShare(t, first - 1, first + n - 1);
-        return before >= AtrialActivity.PPresentShare(before, s) && early <= s.PWaveLostFraction * before;
+        return before >= AtrialActivity.PFoundFactor(before, s) * s.PBeforeQrsShare && early <= s.PWaveLostFraction * before;
     }
 
     public static OffsetMeasure Offset(BeatTrack t, int first, int last, EpisodeSettings s)

@@ -224,7 +224,7 @@ internal static class TachycardiaClassifier
             // The share lowered for noise tells an atrial focus from a re-entry when the start is abrupt (both start
             // so); a gradual start is sinus unless P waves are found as often as in clean beats (MITDB 200 at 852 s:
             // a sinus tachycardia whose noisy P shape matched the sinus P at 0.74 read atrial with the lowered share).
-            var pPresent = f.Onset.Type == "abrupt" ? PPresent(a, s) : s.PBeforeQrsShare;
+            var pPresent = (f.Onset.Type == "abrupt" ? a.PFoundFactor : 1) * s.PBeforeQrsShare;
             if (a.PBeforeShare >= pPresent)
             {
                 // A P wave like the sinus P, but a start on a premature atrial beat and most beats premature atrial
@@ -276,7 +276,7 @@ internal static class TachycardiaClassifier
 
         // Three or more P shapes with none leading: multifocal. One shape holding most P waves is one pacemaker with
         // premature beats of other shapes.
-        if (a.PBeforeShare >= s.MultifocalPShare * PPresent(a, s) / s.PBeforeQrsShare && a.PShapes >= s.MultifocalPShapes && !(a.DominantPShare >= s.DominantPShare))
+        if (a.PBeforeShare >= a.PFoundFactor * s.MultifocalPShare && a.PShapes >= s.MultifocalPShapes && !(a.DominantPShare >= s.DominantPShare))
         {
             return (EpisodeKinds.Mat, 0.7);
         }
@@ -371,8 +371,4 @@ internal static class TachycardiaClassifier
     private static string Af(ClassifierFacts f, EpisodeSettings s) => f.RhythmAfLong ? EpisodeKinds.Af : EpisodeKinds.AfBrief;
 
     private static string Invariant(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
-
-    // The P-present share for this recording (lower where its sinus beats show P waves less often); the settings'
-    // share when it was not measured.
-    private static double PPresent(AtrialFinding a, EpisodeSettings s) => double.IsNaN(a.PPresentShare) ? s.PBeforeQrsShare : a.PPresentShare;
 }

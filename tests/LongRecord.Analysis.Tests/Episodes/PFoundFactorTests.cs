@@ -4,33 +4,33 @@ using LongRecord.Analysis.Settings;
 namespace LongRecord.Analysis.Tests.Episodes;
 
 /// <summary>
-/// The noise-aware P-present share: how often an episode's beats must show a P wave to count as "a P before every
-/// QRS" falls in proportion where the sinus beats before it show theirs less often than clean sinus beats do. The
-/// expected values are worked by hand from the rule and the default settings (0.75 share, 0.9 of clean sinus beats);
-/// the rule's effect is checked on the synthesiser's truth at 12 dB in the pipeline's episode tests.
+/// The noise factor of the P-wave share tests: how often an episode's beats must show a P wave falls in proportion
+/// where the sinus beats before it show theirs less often than clean sinus beats do. The expected values are worked by
+/// hand from the rule and the default settings (clean sinus beats show their P in 0.9); the rule's effect is checked on
+/// the synthesiser's truth at 12 dB in the pipeline's episode tests.
 /// </summary>
-public sealed class PPresentShareTests
+public sealed class PFoundFactorTests
 {
     private static readonly EpisodeSettings s_settings = new();
 
     [Fact]
-    public void SinusBeatsShowingTheirPAsOftenAsCleanOnes_KeepTheSettingsShare()
+    public void SinusBeatsShowingTheirPAsOftenAsCleanOnes_LeaveTheSharesAsSet()
     {
-        Assert.Equal(0.75, AtrialActivity.PPresentShare(40, 36, s_settings), 12);
-        Assert.Equal(0.75, AtrialActivity.PPresentShare(40, 40, s_settings), 12);
+        Assert.Equal(1, AtrialActivity.PFoundFactor(0.9, s_settings), 12);
+        Assert.Equal(1, AtrialActivity.PFoundFactor(1.0, s_settings), 12);
     }
 
     [Fact]
-    public void SinusBeatsShowingTheirPLessOften_LowerTheShareInProportion()
+    public void SinusBeatsShowingTheirPLessOften_LowerTheSharesInProportion()
     {
-        // 64 % of the sinus beats before: 0.75 × 0.64 / 0.9.
-        Assert.Equal(0.75 * 0.64 / 0.9, AtrialActivity.PPresentShare(50, 32, s_settings), 12);
+        // 64 % of the sinus beats before: 0.64 / 0.9.
+        Assert.Equal(0.64 / 0.9, AtrialActivity.PFoundFactor(0.64, s_settings), 12);
     }
 
     [Fact]
-    public void TooFewBeats_OrUnderHalfWithAP_AreNoSinusReference()
+    public void NotMeasured_OrUnderHalfWithAP_AreNoSinusReference()
     {
-        Assert.Equal(0.75, AtrialActivity.PPresentShare(9, 6, s_settings), 12);
-        Assert.Equal(0.75, AtrialActivity.PPresentShare(50, 9, s_settings), 12);
+        Assert.Equal(1, AtrialActivity.PFoundFactor(double.NaN, s_settings), 12);
+        Assert.Equal(1, AtrialActivity.PFoundFactor(0.18, s_settings), 12);
     }
 }
