@@ -197,22 +197,10 @@ internal sealed class PWaveSearch
         double sum = 0;
         var largest = 0f;
         var waveFrom = Math.Max(begin, lo - _p.Margin);
-        var waveTo = Math.Min(end, hi + _p.Margin + 1);
-        for (var i = begin; i < waveFrom; i++)
-        {
-            var v = r[i];
-            sum += v * v;
-            largest = Math.Max(largest, Math.Abs(v));
-        }
-
-        for (var i = Math.Max(waveTo, begin); i < end; i++)
-        {
-            var v = r[i];
-            sum += v * v;
-            largest = Math.Max(largest, Math.Abs(v));
-        }
-
-        var n = Math.Max(0, waveFrom - begin) + Math.Max(0, end - Math.Max(waveTo, begin));
+        var waveTo = Math.Max(begin, Math.Min(end, hi + _p.Margin + 1));
+        AddRest(r[begin..waveFrom], ref sum, ref largest);
+        AddRest(r[waveTo..end], ref sum, ref largest);
+        var n = (waveFrom - begin) + (end - waveTo);
 
         result.Peak = at;
         result.Amplitude = amplitude;
@@ -220,6 +208,16 @@ internal sealed class PWaveSearch
         result.RestSamples = n;
         result.Activity = n > 0 ? (float)Math.Sqrt(sum / n) : 0f;
         result.RestLargest = largest;
+    }
+
+    // Sum of squares and largest magnitude of a stretch, added in order.
+    private static void AddRest(ReadOnlySpan<float> stretch, ref double sum, ref float largest)
+    {
+        foreach (var v in stretch)
+        {
+            sum += v * v;
+            largest = Math.Max(largest, Math.Abs(v));
+        }
     }
 
     // Median over the stored beats of the best correlation (over a small lag) between the candidate's stretch and the
